@@ -30,6 +30,8 @@ export interface CheckTally {
   readonly rule: string;
   readonly level: Level;
   readonly failed: number;
+  /** One line saying what the check demands, e.g. "discount at most 0.6". */
+  readonly description: string;
   /** Where the contract declared the check. */
   readonly source?: SourcePos;
   /** The share of rows allowed to fail before the check counts against the verdict. */
