@@ -1,0 +1,47 @@
+/** The text encodings a contract may declare; `auto` sniffs a byte order mark, else UTF-8, else windows-1252. */
+export type Encoding = "utf-8" | "utf-16le" | "utf-16be" | "windows-1252" | "latin1" | "auto";
+
+/** How to read one delivery file, taken from the contract's `input` section. */
+export interface InputOptions {
+  readonly format: "csv" | "tsv" | "ndjson";
+  /** Field separator; default `,` for csv and a tab for tsv. */
+  readonly delimiter?: string;
+  /** Quote character; default `"` for csv, none for tsv. */
+  readonly quote?: string;
+  readonly encoding: Encoding;
+}
+
+/** One record as read: its cells untouched (no trimming) and the 1-based physical line where it starts. */
+export interface RawRecord {
+  readonly cells: readonly string[];
+  readonly line: number;
+}
+
+/** Why reading stopped before the end of the file; `column` is the 1-based field number when known. */
+export interface StructureBreak {
+  readonly line: number;
+  readonly column?: number;
+  readonly message: string;
+}
+
+/** What is known about the file once its records have been read. */
+export interface DeliverySummary {
+  /** The encoding actually used (`auto` resolved). */
+  readonly encoding: string;
+  /** Set when `auto` found no byte order mark and bytes that are not UTF-8, and fell back to windows-1252. */
+  readonly note?: string;
+  /** Size of the file on disk (compressed size for `.gz`). */
+  readonly bytes: number;
+  /** SHA-256 of the file on disk, lowercase hex. */
+  readonly sha256: string;
+}
+
+/** An opened delivery: records in file order (header first, if any), in batches, then a summary. */
+export interface Delivery {
+  /** Batches of records in file order; ends early after a structure break. Iterate once. */
+  readonly records: AsyncIterable<readonly RawRecord[]>;
+  /** After iteration: why reading stopped early, if it did. */
+  structureBreak(): StructureBreak | undefined;
+  /** After iteration: encoding used, fallback note, raw size and hash. */
+  summary(): DeliverySummary;
+}
