@@ -1,0 +1,55 @@
+import { createRequire } from "node:module";
+import { sha256Hex } from "./csv-table.js";
+import { makeRefTable, type RefTable } from "./ref-table.js";
+
+interface CountriesModule {
+  getAlpha2Codes(): Record<string, string>;
+  alpha2ToAlpha3(code: string): string | undefined;
+  alpha2ToNumeric(code: string): string | undefined;
+  getName(code: string, lang: string): string | undefined;
+}
+
+/** Codes in i18n-iso-countries that ISO 3166-1 does not assign (XK, Kosovo, is a user-assigned code). */
+const NOT_ISO = new Set(["XK"]);
+
+/** One CSV field per RFC 4180: quoted only when it holds a comma, quote or line break. */
+function csvField(v: string): string {
+  return /[",\r\n]/.test(v) ? `"${v.replace(/"/g, '""')}"` : v;
+}
+
+/** The iso-3166-1 rows (sorted by alpha2) and the canonical CSV they hash as: RFC 4180, CRLF line ends. */
+export function iso3166Data(): { rows: string[][]; csv: string; version: string } {
+  const require = createRequire(import.meta.url);
+  const countries = require("i18n-iso-countries") as CountriesModule;
+  const pkg = require("i18n-iso-countries/package.json") as { version: string };
+  const rows: string[][] = [];
+  for (const a2 of Object.keys(countries.getAlpha2Codes()).sort()) {
+    if (NOT_ISO.has(a2)) continue;
+    rows.push([a2, countries.alpha2ToAlpha3(a2) ?? "", countries.alpha2ToNumeric(a2) ?? "", countries.getName(a2, "en") ?? ""]);
+  }
+  const csv = [COLUMNS, ...rows].map((r) => r.map(csvField).join(",")).join("\r\n") + "\r\n";
+  return { rows, csv, version: `i18n-iso-countries ${pkg.version}` };
+}
+
+const COLUMNS = ["alpha2", "alpha3", "numeric", "name"];
+
+/** The built-in iso-3166-1 table (alpha2, alpha3, numeric as three-digit text, English name). */
+export function iso3166Table(): RefTable {
+  const { rows, csv, version } = iso3166Data();
+  return makeRefTable(
+    {
+      name: "iso-3166-1",
+      version,
+      source: "ISO 3166-1 country codes as published in the i18n-iso-countries package",
+      description: "Countries by ISO 3166-1 alpha-2, alpha-3 and numeric code (three digits, as text), with the English name. XK (Kosovo) is left out: it is a user-assigned code, not part of ISO 3166-1.",
+      file: "(built-in)/iso-3166-1",
+      builtIn: true,
+      origin: "(built-in)",
+      key: "alpha2",
+      columns: COLUMNS,
+      types: ["text", "text", "text", "text"],
+      sha256: sha256Hex(new TextEncoder().encode(csv)),
+    },
+    rows,
+  );
+}

@@ -1,0 +1,27 @@
+import { mkdtemp, mkdir, writeFile } from "node:fs/promises";
+import { tmpdir } from "node:os";
+import { dirname, join } from "node:path";
+
+/** A fresh temporary folder with the given files (paths relative to it). */
+export async function tempRepo(files: Record<string, string>): Promise<string> {
+  const root = await mkdtemp(join(tmpdir(), "tg-registry-"));
+  for (const [path, text] of Object.entries(files)) {
+    await mkdir(dirname(join(root, path)), { recursive: true });
+    await writeFile(join(root, path), text);
+  }
+  return root;
+}
+
+export const COLORS_YAML = `tables:
+  colors:
+    file: colors.csv
+    key: code
+    version: "1.0"
+    source: invented for tests
+    columns:
+      code: text
+      name: text
+      rank: integer
+`;
+
+export const COLORS_CSV = "code,name,rank\nRED,Red,1\nGRN,Green,2\nBLU,Blue,3\n";
