@@ -1,0 +1,12 @@
+import type { DeliveryReport } from "./model.js";
+
+/** What every writer needs beyond the reports themselves. */
+export interface WriterContext {
+  /** Repository root; report paths (input.path, contract.path) are already relative to it with '/' separators. */
+  readonly root: string;
+  /** Tool version, for the SARIF driver and the like. */
+  readonly toolVersion: string;
+}
+
+/** A pure function from the reports of one run to the text of one output format. */
+export type Writer = (reports: readonly DeliveryReport[], ctx: WriterContext) => string;
