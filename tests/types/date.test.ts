@@ -58,6 +58,8 @@ describe("strftime directives", () => {
     expect(p.parse("1 Ma 2024")).toBeUndefined();
     expect(p.parse("31 Apr 2024")).toBeUndefined();
     expect(parserFor({ type: "date", format: "%b-%d-%Y" }).parse("dec-25-2024")).toEqual(d(2024, 12, 25));
+    // POSIX strptime: %B is the same directive as %b
+    expect(parserFor({ type: "date", format: "%B %d, %Y" }).parse("September 3, 2024")).toEqual(d(2024, 9, 3));
   });
 
   it("%e takes a space-padded or unpadded day", () => {
