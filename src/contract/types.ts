@@ -54,6 +54,7 @@ export interface ColumnSpec {
 
 export interface RuleSpec {
   readonly id: string;
+  readonly description?: string;
   readonly assert: string;
   readonly when?: string;
   readonly message?: string;
@@ -63,7 +64,8 @@ export interface RuleSpec {
 
 export interface GroupSpec {
   readonly id: string;
-  readonly by: readonly string[];
+  readonly description?: string;
+  readonly by: string | readonly string[];
   readonly assert: string;
   readonly when?: string;
   readonly message?: string;

@@ -38,8 +38,10 @@ export interface CheckTally {
   readonly allow?: number;
   /** failed / rows, present when `allow` is set. */
   readonly share?: number;
-  /** False when the failures count against the verdict (at this level). */
+  /** True when the failures stay within `allow` and so do not count against the verdict. */
   readonly within_allowance?: boolean;
+  /** The first few findings of this check, kept even past `--max-findings`; not written to JSON. */
+  readonly examples?: readonly Finding[];
 }
 
 export interface ReferenceUse {

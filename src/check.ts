@@ -1,0 +1,44 @@
+import type { Plan } from "./contract/plan.js";
+import { runPlan } from "./engine/run.js";
+import { openDelivery } from "./input/index.js";
+import type { Result } from "./problem.js";
+import { buildReport } from "./report/build.js";
+import type { DeliveryReport, Level } from "./report/model.js";
+
+export interface CheckOptions {
+  /** Path of the delivery as reports should show it. */
+  readonly reportPath: string;
+  /** Path of the contract as reports should show it. */
+  readonly contractPath: string;
+  readonly maxFindings?: number;
+  readonly failOn?: Level;
+}
+
+/**
+ * Check one delivery file against a compiled contract. A file that cannot be opened is a problem;
+ * a file that cannot be read to its end is a `file.structure` finding after everything before it.
+ */
+export async function checkFile(plan: Plan, file: string, options: CheckOptions): Promise<Result<DeliveryReport>> {
+  if (plan.input.format === "xlsx") {
+    return { ok: false, problems: [{ file: options.contractPath, message: "input format xlsx is not supported yet; export the sheet as CSV" }] };
+  }
+  const opened = await openDelivery(file, {
+    format: plan.input.format,
+    delimiter: plan.input.delimiter,
+    ...(plan.input.format === "tsv" ? {} : { quote: plan.input.quote }),
+    encoding: plan.input.encoding,
+  });
+  if (!opened.ok) return opened;
+  const delivery = opened.value;
+  const { rows, collector } = await runPlan(plan, delivery.records, () => delivery.structureBreak(), { maxFindings: options.maxFindings ?? 1000 });
+  const summary = delivery.summary();
+  const report = buildReport({
+    plan,
+    collector,
+    rows,
+    contractPath: options.contractPath,
+    failOn: options.failOn ?? "error",
+    input: { path: options.reportPath, sha256: summary.sha256, bytes: summary.bytes, rows, format: plan.input.format, encoding: summary.encoding },
+  });
+  return { ok: true, value: report };
+}

@@ -1,0 +1,35 @@
+import type { ColumnSpec } from "../contract/types.js";
+import type { SpecError } from "../contract/spec-error.js";
+import { compareValues, formatValue, parseBound } from "../types/index.js";
+import type { Value } from "../values.js";
+import { miss, type CheckDefinition, type CompiledCheck } from "./definition.js";
+
+const ORDERED = ["integer", "decimal", "date", "timestamp", "time"] as const;
+
+function bound(spec: ColumnSpec, key: "min" | "max"): Value | SpecError[] {
+  const written = spec[key];
+  const parsed = written === undefined ? undefined : parseBound(spec, written);
+  if (parsed === undefined || parsed === null) {
+    const want = spec.type === "integer" || spec.type === "decimal" ? "a number" : `an ISO 8601 ${spec.type}`;
+    return [{ path: [key], message: `${key} must be ${want} for a ${spec.type} column; got ${JSON.stringify(written)}` }];
+  }
+  return parsed;
+}
+
+function compileBound(key: "min" | "max", spec: ColumnSpec, column: string): CompiledCheck | SpecError[] {
+  const limit = bound(spec, key);
+  if (Array.isArray(limit)) return limit;
+  const shown = formatValue(limit as Value);
+  if (key === "min") {
+    const m = miss(`>= ${shown}`, `is below the minimum ${shown}`);
+    return { description: `${column} at least ${shown}`, test: (v) => (compareValues(v, limit as Value) < 0 ? m : undefined) };
+  }
+  const m = miss(`<= ${shown}`, `is above the maximum ${shown}`);
+  return { description: `${column} at most ${shown}`, test: (v) => (compareValues(v, limit as Value) > 0 ? m : undefined) };
+}
+
+/** `min`: the smallest allowed value, inclusive. */
+export const min: CheckDefinition = { name: "min", key: "min", types: ORDERED, compile: (spec, ctx) => compileBound("min", spec, ctx.column) };
+
+/** `max`: the largest allowed value, inclusive. */
+export const max: CheckDefinition = { name: "max", key: "max", types: ORDERED, compile: (spec, ctx) => compileBound("max", spec, ctx.column) };

@@ -1,0 +1,33 @@
+import { miss, type CheckDefinition } from "./definition.js";
+
+const LISTED = 8;
+
+function listing(values: readonly string[]): string {
+  const shown = values.slice(0, LISTED).join(", ");
+  return values.length > LISTED ? `${shown}, ... (${values.length} codes)` : shown;
+}
+
+/** `codes`: the trimmed text must be one of a list, or one of a registry table column's values. */
+export const codes: CheckDefinition = {
+  name: "codes",
+  key: "codes",
+  types: ["text", "integer", "decimal", "boolean", "date", "timestamp", "time"],
+  compile(spec, ctx) {
+    const c = spec.codes;
+    if (c === undefined) return undefined;
+    let allowed: ReadonlySet<string>;
+    let where: string;
+    if (Array.isArray(c)) {
+      allowed = new Set(c.map(String));
+      where = listing([...allowed]);
+    } else {
+      const { table, column } = c as { table: string; column: string };
+      const set = ctx.codeSet(table, column);
+      if (typeof set === "string") return [{ path: ["codes"], message: set }];
+      allowed = set;
+      where = `a ${column} in reference table ${table}`;
+    }
+    const m = miss(Array.isArray(c) ? `one of ${where}` : where, Array.isArray(c) ? "is not an allowed code" : `is not ${where}`);
+    return { description: `${ctx.column} is ${Array.isArray(c) ? `one of ${where}` : where}`, test: (_v, text) => (allowed.has(text) ? undefined : m) };
+  },
+};

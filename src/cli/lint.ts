@@ -1,0 +1,28 @@
+import { isAbsolute, join } from "node:path";
+import { loadContract } from "../contract/load.js";
+import { formatProblem } from "../problem.js";
+import { loadRegistry } from "../registry/index.js";
+import { EXIT, type Io } from "./io.js";
+import { badArgument, unusable } from "./problems.js";
+import { findRoot, reportPath } from "./root.js";
+
+/** `tablegate lint <contract...>`: check contracts (and the registry they use) without data. */
+export async function lint(argv: readonly string[], io: Io): Promise<number> {
+  if (argv.length === 0) return badArgument(io, "lint needs at least one contract file\nusage: tablegate lint <contract...>");
+  const root = findRoot(io.cwd);
+  const registry = await loadRegistry(root);
+  if (!registry.ok) return unusable(io, registry.problems);
+  let bad = 0;
+  for (const file of argv) {
+    const path = isAbsolute(file) ? file : join(io.cwd, file);
+    const shown = reportPath(root, path);
+    const loaded = await loadContract(path, { registry: registry.value });
+    if (loaded.ok) {
+      io.stdout(`${shown}: ok (${loaded.value.checks.length} checks)\n`);
+      continue;
+    }
+    bad++;
+    for (const p of loaded.problems) io.stderr(`tablegate: ${formatProblem({ ...p, file: p.file === path ? shown : p.file })}\n`);
+  }
+  return bad > 0 ? EXIT.unusable : EXIT.pass;
+}

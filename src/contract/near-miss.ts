@@ -1,0 +1,37 @@
+/** Levenshtein distance, small inputs only (names, keys, headers). */
+export function editDistance(a: string, b: string): number {
+  if (a === b) return 0;
+  let prev = Array.from({ length: b.length + 1 }, (_, j) => j);
+  for (let i = 1; i <= a.length; i++) {
+    const cur = [i];
+    for (let j = 1; j <= b.length; j++) {
+      const cost = a[i - 1] === b[j - 1] ? 0 : 1;
+      cur.push(Math.min((prev[j] ?? 0) + 1, (cur[j - 1] ?? 0) + 1, (prev[j - 1] ?? 0) + cost));
+    }
+    prev = cur;
+  }
+  return prev[b.length] ?? 0;
+}
+
+const fold = (s: string): string => s.trim().toLowerCase().replace(/[\s_-]+/g, "_");
+
+/**
+ * The candidate closest to `name`, if close enough to be a likely typo: equal after folding case,
+ * spaces, dashes and underscores, or within a third of its length in edits.
+ */
+export function nearMiss(name: string, candidates: Iterable<string>): string | undefined {
+  let best: string | undefined;
+  let bestScore = Infinity;
+  const folded = fold(name);
+  for (const c of candidates) {
+    const score = fold(c) === folded ? 0 : editDistance(folded, fold(c));
+    if (score < bestScore) [best, bestScore] = [c, score];
+  }
+  return best !== undefined && bestScore <= Math.max(1, Math.floor(name.length / 3)) ? best : undefined;
+}
+
+/** ` (did you mean "x"?)` or nothing. */
+export function suggestion(name: string, candidates: Iterable<string>): string {
+  const hit = nearMiss(name, candidates);
+  return hit === undefined ? "" : ` (did you mean "${hit}"?)`;
+}

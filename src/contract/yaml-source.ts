@@ -1,0 +1,89 @@
+import { isMap, isPair, isScalar, isSeq, LineCounter, parseDocument, type Document, type Node } from "yaml";
+import type { Problem } from "../problem.js";
+
+/** A parsed YAML file that can turn paths and offsets into 1-based line and column. */
+export interface YamlSource {
+  readonly file: string;
+  readonly text: string;
+  readonly doc: Document.Parsed;
+  readonly lines: LineCounter;
+  /** YAML syntax errors, already positioned. */
+  readonly syntaxProblems: readonly Problem[];
+}
+
+export type YamlPath = readonly (string | number)[];
+
+/** Parse YAML text keeping source ranges; never throws. */
+export function parseYamlSource(file: string, text: string): YamlSource {
+  const lines = new LineCounter();
+  const doc = parseDocument(text, { lineCounter: lines, prettyErrors: false, uniqueKeys: true });
+  const syntaxProblems = doc.errors.map((e): Problem => {
+    const pos = lines.linePos(e.pos[0]);
+    return { file, line: pos.line, column: pos.col, message: firstLine(e.message) };
+  });
+  return { file, text, doc, lines, syntaxProblems };
+}
+
+function firstLine(message: string): string {
+  return message.split("\n", 1)[0]?.replace(/ at line \d+, column \d+:?$/, "") ?? message;
+}
+
+/** The deepest node along `path` that exists, and whether the whole path was found. */
+function nodeAt(src: YamlSource, path: YamlPath): { node: Node | null; complete: boolean } {
+  let node: unknown = src.doc.contents;
+  for (const key of path) {
+    if (isMap(node)) {
+      const pair = node.items.find((p) => isScalar(p.key) && String(p.key.value) === String(key));
+      if (!pair || !pair.value) return { node: node as Node, complete: false };
+      node = pair.value;
+    } else if (isSeq(node) && typeof key === "number" && node.items[key]) {
+      node = node.items[key];
+    } else {
+      return { node: (node as Node | null) ?? null, complete: false };
+    }
+  }
+  return { node: (node as Node | null) ?? null, complete: true };
+}
+
+/** The key node of `name` inside the map at `path`, for errors about the key itself. */
+function keyAt(src: YamlSource, path: YamlPath, name: string): Node | null {
+  const { node, complete } = nodeAt(src, path);
+  if (!complete || !isMap(node)) return null;
+  const pair = node.items.find((p) => isPair(p) && isScalar(p.key) && String(p.key.value) === name);
+  return pair && isScalar(pair.key) ? pair.key : null;
+}
+
+function positionOf(src: YamlSource, offset: number): { line: number; column: number } {
+  const pos = src.lines.linePos(offset);
+  return { line: pos.line, column: pos.col };
+}
+
+/** A problem positioned at the node found at `path` (or the nearest existing parent). */
+export function problemAt(src: YamlSource, path: YamlPath, message: string, options: { key?: string; offset?: number } = {}): Problem {
+  const keyNode = options.key === undefined ? null : keyAt(src, path, options.key);
+  const { node } = keyNode ? { node: keyNode } : nodeAt(src, path);
+  if (!node?.range) return { file: src.file, line: 1, column: 1, message };
+  let at = node.range[0];
+  if (options.offset !== undefined && isScalar(node) && typeof node.value === "string") {
+    at = sourceOffsetInScalar(src.text, node.range[0], node.range[1], node.value, options.offset);
+  }
+  return { file: src.file, ...positionOf(src, at), message };
+}
+
+/**
+ * Map a character offset in a scalar's value to an offset in the file. The value differs from its
+ * source by quotes, escapes, folding and indentation, so align the two greedily character by character.
+ */
+function sourceOffsetInScalar(text: string, start: number, end: number, value: string, offset: number): number {
+  let p = start;
+  const first = text[p];
+  if (first === "'" || first === '"') p++;
+  else if (first === "|" || first === ">") p = text.indexOf("\n", p) + 1 || p;
+  for (let i = 0; i < value.length && p < end; i++) {
+    const c = value[i];
+    while (p < end && text[p] !== c && !(c === " " && (text[p] === "\n" || text[p] === " "))) p++;
+    if (i === offset) return Math.min(p, end);
+    p++;
+  }
+  return Math.min(p, end);
+}

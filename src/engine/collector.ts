@@ -1,0 +1,63 @@
+import type { CheckMeta } from "../contract/plan.js";
+import type { Finding, Level } from "../report/model.js";
+import { createRowBits } from "./growable.js";
+
+/** How many findings of each check are kept for people even past `--max-findings`. */
+export const SAMPLES_PER_CHECK = 5;
+
+/**
+ * Counts every failure exactly and keeps the first `maxFindings` findings in file order, plus the
+ * first few of each check so a person sees an example of every rule.
+ */
+export interface Collector {
+  /**
+   * Count a failure of `check` on `row` (0 for whole-file findings); true when the caller should
+   * build the finding and pass it to `keep`. `level` overrides the check's level for this one.
+   */
+  fail(check: number, row: number, level?: Level): boolean;
+  keep(check: number, finding: Finding): void;
+  readonly failed: Uint32Array;
+  readonly findings: readonly Finding[];
+  /** Findings by check, the first SAMPLES_PER_CHECK of each. */
+  readonly samples: readonly (readonly Finding[])[];
+  readonly levelCounts: Readonly<Record<Level, number>>;
+  /** Rows with at least one error-level finding. */
+  readonly rowsFailed: number;
+  readonly truncated: boolean;
+}
+
+export function createCollector(checks: readonly CheckMeta[], maxFindings: number): Collector {
+  const failed = new Uint32Array(checks.length);
+  const findings: Finding[] = [];
+  const samples: Finding[][] = checks.map(() => []);
+  const levelCounts: Record<Level, number> = { error: 0, warning: 0, note: 0 };
+  const failedRows = createRowBits();
+  let truncated = false;
+  return {
+    fail(check, row, level) {
+      const meta = checks[check];
+      const lvl = level ?? meta?.level ?? "error";
+      levelCounts[lvl]++;
+      if (level === undefined || level === meta?.level) failed[check] = (failed[check] ?? 0) + 1;
+      if (lvl === "error" && row > 0) failedRows.set(row);
+      const wanted = findings.length < maxFindings || (samples[check]?.length ?? 0) < SAMPLES_PER_CHECK;
+      if (findings.length >= maxFindings) truncated = true;
+      return wanted;
+    },
+    keep(check, finding) {
+      if (findings.length < maxFindings) findings.push(finding);
+      const s = samples[check];
+      if (s && s.length < SAMPLES_PER_CHECK) s.push(finding);
+    },
+    failed,
+    findings,
+    samples,
+    levelCounts,
+    get rowsFailed() {
+      return failedRows.count;
+    },
+    get truncated() {
+      return truncated;
+    },
+  };
+}

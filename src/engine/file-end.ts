@@ -1,0 +1,122 @@
+import type { GroupPlan, Plan } from "../contract/plan.js";
+import { createAccumulator, isFalse, isTrue } from "../expr/index.js";
+import { createFloatColumn, findOutliers } from "../stats/index.js";
+import { formatValue } from "../types/index.js";
+import type { Value } from "../values.js";
+import type { Collector } from "./collector.js";
+import { createU32List } from "./growable.js";
+import { shownValue } from "./shown.js";
+
+type Accumulator = ReturnType<typeof createAccumulator>;
+
+interface GroupState {
+  readonly acc: Accumulator;
+  readonly key: string;
+  readonly firstRow: number;
+  readonly firstLine: number;
+  lastRow: number;
+  rows: number;
+}
+
+/** Cell states the engine passes along: 0 parsed, 1 blank, 2 not of its type, 3 column absent. */
+export type CellStates = Uint8Array;
+
+/**
+ * The checks that can only be judged once the whole file is read: groups, outliers and totals.
+ * They keep per group one accumulator, per outlier column 12 bytes a row, and per row 4 bytes of
+ * line number (only when groups or outliers need to point back at rows).
+ */
+export function createFileEnd(plan: Plan, out: Collector) {
+  const groups = plan.groups.map((g) => ({ plan: g, states: new Map<string, GroupState>() }));
+  const numbers = plan.outliers.map(() => createFloatColumn());
+  const lines = plan.outliers.length > 0 ? createU32List() : undefined;
+  const blanks = new Float64Array(plan.columns.length);
+  let checked = 0;
+
+  const groupKey = (g: GroupPlan, texts: readonly string[], raws: readonly string[]): string => {
+    let key = "";
+    for (let i = 0; i < g.by.length; i++) {
+      const c = g.by[i] as number;
+      const t = texts[c] as string;
+      key += (i === 0 ? "" : "\u001f") + (t === "" ? "" : shownValue(raws[c] as string, plan.columns[c]?.sensitive === true).trim());
+    }
+    return key;
+  };
+
+  return {
+    /** A record not checked (wrong width): only its line is remembered. */
+    skipped(line: number) {
+      lines?.push(line);
+    },
+    row(values: readonly Value[], texts: readonly string[], raws: readonly string[], states: CellStates, rowNo: number, line: number) {
+      checked++;
+      lines?.push(line);
+      for (const b of plan.blankShares) if (states[b.column] === 1) blanks[b.column] = (blanks[b.column] ?? 0) + 1;
+      for (let o = 0; o < plan.outliers.length; o++) {
+        const v = values[(plan.outliers[o] as (typeof plan.outliers)[number]).column];
+        if (typeof v === "number") numbers[o]?.push(v, rowNo);
+      }
+      for (const g of groups) {
+        if (g.plan.when !== undefined && !isTrue(g.plan.when.evaluate(values))) continue;
+        const key = groupKey(g.plan, texts, raws);
+        let s = g.states.get(key);
+        if (!s) {
+          s = { acc: createAccumulator(g.plan.assert.aggregates), key, firstRow: rowNo, firstLine: line, lastRow: rowNo, rows: 0 };
+          g.states.set(key, s);
+        }
+        s.acc.add(values);
+        s.lastRow = rowNo;
+        s.rows++;
+      }
+    },
+    finish(rows: number) {
+      const rule = (check: number) => plan.checks[check]?.rule ?? "";
+      const level = (check: number) => plan.checks[check]?.level ?? "error";
+      for (const g of groups) {
+        const names = g.plan.by.map((c) => plan.columns[c]?.name ?? "");
+        for (const s of g.states.values()) {
+          const results = s.acc.results();
+          if (!isFalse(g.plan.assert.evaluate(results))) continue;
+          if (!out.fail(g.plan.check, s.firstRow)) continue;
+          const parts = s.key.split("\u001f");
+          const key = names.map((nm, i) => `${nm}=${parts[i] === "" ? "(blank)" : parts[i]}`).join(", ");
+          const shown = g.plan.assert.aggregates.map((a, i) => `${a.fn}(${a.arg?.source ?? ""})=${formatValue(results[i] ?? null)}`).join(", ");
+          const span = s.rows === 1 ? `row ${s.firstRow}` : `${s.rows} rows, ${s.firstRow} to ${s.lastRow}`;
+          out.keep(g.plan.check, {
+            rule: rule(g.plan.check), level: level(g.plan.check), row: s.firstRow, line: s.firstLine, column: names[0] ?? "",
+            value: key, expected: g.plan.assert.source,
+            message: `group ${key} (${span}): ${g.plan.message ?? `${g.plan.assert.source} is false`} (${shown})`,
+          });
+        }
+      }
+      plan.outliers.forEach((o, i) => {
+        const col = numbers[i];
+        if (!col) return;
+        const found = findOutliers(col, { method: o.method, k: o.k, threshold: o.threshold });
+        const name = plan.columns[o.column]?.name ?? "";
+        const sensitive = plan.columns[o.column]?.sensitive === true;
+        const expected = found.fence
+          ? `between ${formatValue(found.fence.low)} and ${formatValue(found.fence.high)} (Tukey fences, k = ${o.k})`
+          : `modified z-score at most ${o.threshold} (median ${formatValue(found.median ?? 0)})`;
+        for (const hit of found.outliers) {
+          if (!out.fail(o.check, hit.row)) continue;
+          const shown = shownValue(formatValue(hit.value), sensitive);
+          const why = hit.score === undefined ? `lies outside ${expected}` : `has modified z-score ${hit.score.toFixed(2)}, above ${o.threshold}`;
+          out.keep(o.check, { rule: rule(o.check), level: level(o.check), row: hit.row, line: lines?.at(hit.row - 1) ?? 0, column: name, value: shown, expected, message: `${name} ${shown} ${why}` });
+        }
+      });
+      const t = plan.totalRows;
+      if (t && ((t.min !== undefined && rows < t.min) || (t.max !== undefined && rows > t.max))) {
+        const expected = `between ${t.min ?? 0} and ${t.max ?? "any number of"} rows`;
+        if (out.fail(t.check, 0)) out.keep(t.check, { rule: rule(t.check), level: level(t.check), value: String(rows), expected, message: `the file has ${rows} rows; expected ${expected}` });
+      }
+      for (const b of plan.blankShares) {
+        const share = checked === 0 ? 0 : (blanks[b.column] ?? 0) / checked;
+        if (share <= b.max) continue;
+        const name = plan.columns[b.column]?.name ?? "";
+        const pct = (x: number) => `${Number((x * 100).toFixed(2))}%`;
+        if (out.fail(b.check, 0)) out.keep(b.check, { rule: rule(b.check), level: level(b.check), column: name, value: pct(share), expected: `at most ${pct(b.max)} blank`, message: `${name} is blank in ${pct(share)} of rows (${blanks[b.column]} of ${checked}); at most ${pct(b.max)} allowed` });
+      }
+    },
+  };
+}

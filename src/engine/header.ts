@@ -1,0 +1,61 @@
+import { suggestion } from "../contract/near-miss.js";
+import type { Plan } from "../contract/plan.js";
+import type { Finding } from "../report/model.js";
+
+export interface HeaderFinding {
+  readonly check: number;
+  readonly finding: Finding;
+}
+
+/** Where each declared column sits in the records (-1 when absent), and what is wrong with the header. */
+export interface HeaderMatch {
+  readonly positions: Int32Array;
+  readonly width: number;
+  readonly findings: readonly HeaderFinding[];
+}
+
+/** Declared columns taken positionally, for `header: none`. */
+export function positional(plan: Plan): HeaderMatch {
+  return { positions: Int32Array.from(plan.columns, (_, i) => i), width: plan.columns.length, findings: [] };
+}
+
+/**
+ * Match a header record against the declared columns by trimmed name, whatever the policy, so the
+ * rows can still be checked; the policy decides which differences are findings and at what level.
+ */
+export function matchHeader(plan: Plan, cells: readonly string[], line: number): HeaderMatch {
+  const policy = plan.input.header;
+  const names = cells.map((c) => c.trim());
+  const positions = new Int32Array(plan.columns.length).fill(-1);
+  const byName = new Map<string, number>();
+  const findings: HeaderFinding[] = [];
+  const at = (check: number, finding: Omit<Finding, "rule" | "level" | "line">) => {
+    const meta = plan.checks[check];
+    findings.push({ check, finding: { rule: meta?.rule ?? "", level: meta?.level ?? "error", line, ...finding } });
+  };
+  names.forEach((name, i) => {
+    if (byName.has(name)) at(plan.file.headerDuplicate, { column: name, value: name, expected: "each column named once", message: `header names ${name} twice (cells ${(byName.get(name) ?? 0) + 1} and ${i + 1})` });
+    else byName.set(name, i);
+  });
+  const declared = new Set(plan.columns.map((c) => c.name));
+  const extras = names.filter((n, i) => !declared.has(n) && byName.get(n) === i);
+  for (const col of plan.columns) {
+    const pos = byName.get(col.name);
+    if (pos !== undefined) positions[col.index] = pos;
+    else at(plan.file.headerMissing, { column: col.name, expected: col.name, message: `header has no column ${col.name}${suggestion(col.name, extras)}` });
+  }
+  for (const name of extras) {
+    const near = suggestion(name, plan.columns.filter((c) => !byName.has(c.name)).map((c) => c.name));
+    at(plan.file.headerUnexpected, { column: name, value: name, expected: "a declared column", message: `header has undeclared column ${JSON.stringify(name)}${near}` });
+  }
+  if (policy === "exact" || policy === "ordered") {
+    const present = plan.columns.filter((c) => (positions[c.index] ?? -1) >= 0);
+    const inOrder = present.every((c, i) => i === 0 || (positions[c.index] ?? 0) > (positions[present[i - 1]?.index ?? 0] ?? 0));
+    const exactPlaces = policy !== "exact" || present.every((c) => positions[c.index] === c.index);
+    if (!inOrder || (!exactPlaces && extras.length === 0)) {
+      const found = present.slice().sort((a, b) => (positions[a.index] ?? 0) - (positions[b.index] ?? 0)).map((c) => c.name);
+      at(plan.file.headerOrder, { value: found.join(","), expected: present.map((c) => c.name).join(","), message: `header lists the columns out of order: ${found.join(", ")}; expected ${present.map((c) => c.name).join(", ")}` });
+    }
+  }
+  return { positions, width: cells.length, findings };
+}

@@ -1,0 +1,178 @@
+import type { Plan } from "../contract/plan.js";
+import { isFalse, isTrue } from "../expr/index.js";
+import type { RawRecord, StructureBreak } from "../input/index.js";
+import type { Finding, Level } from "../report/model.js";
+import type { Value } from "../values.js";
+import { createCollector, type Collector } from "./collector.js";
+import { createFileEnd } from "./file-end.js";
+import { matchHeader, positional, type HeaderMatch } from "./header.js";
+import { createRowHasher } from "./row-hash.js";
+import { createSeenSet } from "./seen-set.js";
+import { shownValue } from "./shown.js";
+
+export interface EngineOptions {
+  readonly maxFindings: number;
+}
+
+export interface EngineOutcome {
+  /** Data records read (the header is not one; a ragged record is). */
+  readonly rows: number;
+  readonly collector: Collector;
+}
+
+/**
+ * Run a plan over a delivery's records: the header first (unless `header: none`), then every data
+ * record. Holds one row of scratch arrays, key and duplicate hashes, group accumulators and the numeric
+ * columns outliers need; nothing else grows with the file.
+ */
+export async function runPlan(plan: Plan, batches: AsyncIterable<readonly RawRecord[]>, structureBreak: () => StructureBreak | undefined, options: EngineOptions): Promise<EngineOutcome> {
+  const out = createCollector(plan.checks, options.maxFindings);
+  const cols = plan.columns;
+  const n = cols.length;
+  const values: Value[] = new Array<Value>(n).fill(null);
+  const texts: string[] = new Array<string>(n).fill("");
+  const raws: string[] = new Array<string>(n).fill("");
+  const state = new Uint8Array(n); // 0 ok, 1 blank, 2 type error, 3 absent
+  const row = { values, texts };
+  const blank = plan.input.blank;
+  const onlyEmptyBlank = blank.size === 1;
+  const keySets = plan.keys.map(() => createSeenSet());
+  const dupSet = plan.duplicates === undefined ? undefined : createSeenSet();
+  const hasher = createRowHasher();
+  const end = createFileEnd(plan, out);
+  let header: HeaderMatch | undefined = plan.input.header === "none" ? positional(plan) : undefined;
+  let rows = 0;
+
+  const levelOf = (check: number): Level => plan.checks[check]?.level ?? "error";
+  const emit = (check: number, rowNo: number, line: number, f: Omit<Finding, "rule" | "level" | "row" | "line">, level?: Level) => {
+    if (out.fail(check, rowNo, level)) out.keep(check, { rule: plan.checks[check]?.rule ?? "", level: level ?? levelOf(check), row: rowNo, line, ...f });
+  };
+
+  const checkRecord = (rec: RawRecord, h: HeaderMatch) => {
+    const rowNo = ++rows;
+    const line = rec.line;
+    const cells = rec.cells;
+    if (cells.length !== h.width) {
+      emit(plan.file.width, rowNo, line, { value: String(cells.length), expected: `${h.width} cells`, message: `record has ${cells.length} cells, expected ${h.width}; its cells are not checked` });
+      end.skipped(line);
+      return;
+    }
+    // Parse every cell first: a column's `when` and the rules may read any other column.
+    for (let i = 0; i < n; i++) {
+      const pos = h.positions[i] ?? -1;
+      if (pos < 0) {
+        values[i] = null;
+        texts[i] = "";
+        raws[i] = "";
+        state[i] = 3;
+        continue;
+      }
+      const raw = cells[pos] ?? "";
+      const text = raw.length > 0 && (raw.charCodeAt(0) <= 32 || raw.charCodeAt(raw.length - 1) <= 32 || raw.charCodeAt(0) === 160 || raw.charCodeAt(raw.length - 1) === 160) ? raw.trim() : raw;
+      raws[i] = raw;
+      if (text === "" || (!onlyEmptyBlank && blank.has(text))) {
+        values[i] = null;
+        texts[i] = "";
+        state[i] = 1;
+        continue;
+      }
+      texts[i] = text;
+      const v = (cols[i] as (typeof cols)[number]).parse(text);
+      if (v === undefined) {
+        values[i] = null;
+        state[i] = 2;
+      } else {
+        values[i] = v;
+        state[i] = 0;
+      }
+    }
+    for (let i = 0; i < n; i++) {
+      const col = cols[i] as (typeof cols)[number];
+      const s = state[i];
+      if (s === 3) continue;
+      if (col.when !== undefined && !isTrue(col.when.evaluate(values))) continue;
+      const raw = raws[i] as string;
+      const text = texts[i] as string;
+      if (col.spacesCheck >= 0 && text !== "" && raw !== text) {
+        emit(col.spacesCheck, rowNo, line, { column: col.name, value: shownValue(raw, col.sensitive), expected: "no leading or trailing spaces", message: `${col.name} ${shownValue(raw, col.sensitive)} has leading or trailing spaces` });
+      }
+      if (s === 1) {
+        if (col.required) emit(col.requiredCheck, rowNo, line, { column: col.name, value: raw, expected: "a value", message: `${col.name} is blank but required` });
+        continue;
+      }
+      if (s === 2) {
+        const shown = shownValue(raw, col.sensitive);
+        emit(col.typeCheck, rowNo, line, { column: col.name, value: shown, expected: col.expected, message: `${col.name} ${shown} is not ${col.expected}` });
+        continue;
+      }
+      const checks = col.cellChecks;
+      for (let c = 0; c < checks.length; c++) {
+        const cc = checks[c] as (typeof checks)[number];
+        const m = cc.test(values[i] as Value, text, row);
+        if (m === undefined) continue;
+        const shown = shownValue(raw, col.sensitive);
+        emit(cc.check, rowNo, line, { column: col.name, value: shown, expected: m.expected, message: `${col.name} ${shown} ${m.reason}` }, m.level);
+      }
+    }
+    for (let k = 0; k < plan.keys.length; k++) {
+      const key = plan.keys[k] as (typeof plan.keys)[number];
+      hasher.reset();
+      let complete = true;
+      for (const c of key.columns) {
+        if (state[c] !== 0 && state[c] !== 2) complete = false;
+        hasher.add(texts[c] as string);
+      }
+      if (!complete) continue; // SQL UNIQUE: a key with a blank part never equals another
+      const first = (keySets[k] as ReturnType<typeof createSeenSet>).firstOrAdd(hasher.hi, hasher.lo, rowNo);
+      if (first !== 0) {
+        const shown = key.columns.map((c) => shownValue(raws[c] as string, cols[c]?.sensitive === true)).join(", ");
+        const names = key.columns.map((c) => cols[c]?.name).join(" + ");
+        emit(key.check, rowNo, line, { column: cols[key.columns[0] ?? 0]?.name ?? "", value: shown, expected: "a unique key", message: `${names} (${shown}) repeats the key of row ${first}` });
+      }
+    }
+    if (dupSet !== undefined && plan.duplicates !== undefined) {
+      hasher.reset();
+      for (let c = 0; c < cells.length; c++) hasher.add(cells[c] as string);
+      const first = dupSet.firstOrAdd(hasher.hi, hasher.lo, rowNo);
+      if (first !== 0) emit(plan.duplicates, rowNo, line, { expected: "a row seen once", message: `row repeats row ${first} exactly` });
+    }
+    for (const rule of plan.rules) {
+      if (rule.when !== undefined && !isTrue(rule.when.evaluate(values))) continue;
+      if (!isFalse(rule.assert.evaluate(values))) continue;
+      const shown = rule.assert.columns.map((c) => `${cols[c]?.name}=${state[c] === 1 ? "(blank)" : shownValue(raws[c] as string, cols[c]?.sensitive === true)}${state[c] === 2 ? " (invalid)" : ""}`).join(", ");
+      const first = rule.assert.columns[0];
+      emit(rule.check, rowNo, line, {
+        ...(first === undefined ? {} : { column: cols[first]?.name ?? "" }),
+        value: shown,
+        expected: rule.assert.source,
+        message: `${rule.message ?? `${rule.assert.source} is false`} (${shown})`,
+      });
+    }
+    end.row(values, texts, raws, state, rowNo, line);
+  };
+
+  for await (const batch of batches) {
+    for (let b = 0; b < batch.length; b++) {
+      const rec = batch[b] as RawRecord;
+      if (header === undefined) {
+        header = matchHeader(plan, rec.cells, rec.line);
+        for (const hf of header.findings) if (out.fail(hf.check, 0)) out.keep(hf.check, hf.finding);
+        continue;
+      }
+      checkRecord(rec, header);
+    }
+  }
+  if (header === undefined) {
+    header = matchHeader(plan, [], 1);
+    for (const hf of header.findings) if (out.fail(hf.check, 0)) out.keep(hf.check, hf.finding);
+  }
+  const broke = structureBreak();
+  if (broke) {
+    const meta = plan.checks[plan.file.structure];
+    if (out.fail(plan.file.structure, 0)) {
+      out.keep(plan.file.structure, { rule: meta?.rule ?? "file.structure", level: "error", line: broke.line, expected: "a file readable to its end", message: `${broke.message}; reading stopped at line ${broke.line}, ${rows} records before it were checked` });
+    }
+  }
+  end.finish(rows);
+  return { rows, collector: out };
+}

@@ -1,0 +1,37 @@
+import type { CheckTally, DeliveryReport, Finding, Level } from "./model.js";
+import type { Writer } from "./writer.js";
+
+const ORDER: Readonly<Record<Level, number>> = { error: 0, warning: 1, note: 2 };
+const n = (x: number) => x.toLocaleString("en-US");
+const plural = (x: number, word: string) => `${n(x)} ${word}${x === 1 ? "" : "s"}`;
+
+function where(f: Finding): string {
+  if (f.row !== undefined) return `row ${f.row}${f.line === undefined ? "" : ` (line ${f.line})`}`;
+  return f.line === undefined ? "file" : `line ${f.line}`;
+}
+
+function checkBlock(r: DeliveryReport, c: CheckTally): string[] {
+  const src = c.source ? `${r.contract.path}:${c.source.line}` : "built in";
+  const allowance = c.allow === undefined ? "" : ` · ${(100 * (c.share ?? 0)).toFixed(2)}% of rows, ${c.within_allowance ? "within" : "over"} the ${(100 * c.allow).toFixed(2)}% allowed`;
+  const lines = [`${c.level.toUpperCase().padEnd(7)} ${c.rule} · ${plural(c.failed, "finding")}${allowance}`, `        ${c.description} (${src})`];
+  const shown = c.examples ?? r.findings.filter((f) => f.rule === c.rule).slice(0, 5);
+  for (const f of shown) lines.push(`        ${where(f).padEnd(22)} ${f.message}`);
+  const more = c.failed - shown.length;
+  if (more > 0) lines.push(`        ... and ${plural(more, "more finding")} of this rule`);
+  return lines;
+}
+
+function delivery(r: DeliveryReport): string {
+  const c = r.counts;
+  const head = [
+    `${r.input.path} · contract ${r.contract.name}${r.contract.version ? ` ${r.contract.version}` : ""} (${r.contract.path})`,
+    `${r.verdict === "pass" ? "PASS" : "FAIL"} · ${plural(r.input.rows, "row")} · ${plural(c.error, "error")}, ${plural(c.warning, "warning")}, ${plural(c.note, "note")} · ${plural(c.rows_failed, "row")} with errors`,
+  ];
+  const failed = r.checks.filter((k) => k.failed > 0).sort((a, b) => ORDER[a.level] - ORDER[b.level]);
+  const body = failed.flatMap((k) => ["", ...checkBlock(r, k)]);
+  const tail = r.truncated ? ["", `(the JSON report lists the first ${n(r.findings.length)} findings; counts above are complete)`] : [];
+  return [...head, ...body, ...tail].join("\n");
+}
+
+/** The report for people reading a terminal or a CI log: per delivery, failed checks by severity, with examples. */
+export const text: Writer = (reports) => reports.map(delivery).join("\n\n") + "\n";
