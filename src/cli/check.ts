@@ -3,7 +3,9 @@ import { parseArgs } from "node:util";
 import { checkFile } from "../check.js";
 import { loadContract } from "../contract/load.js";
 import type { Plan } from "../contract/plan.js";
-import type { Problem } from "../problem.js";
+import type { Problem, Result } from "../problem.js";
+import { contractFor, loadProjectConfig, type ProjectConfig } from "../project/config.js";
+import { changedSince, DATA_FILE, routedFiles } from "../project/files.js";
 import type { DeliveryReport, Level } from "../report/model.js";
 import { loadRegistry, verifyLock, type Registry } from "../registry/index.js";
 import { EXIT, type Io } from "./io.js";
@@ -11,66 +13,107 @@ import { badArgument, unusable } from "./problems.js";
 import { parseReportTargets, writeReports } from "./reports.js";
 import { findRoot, reportPath } from "./root.js";
 
-export const CHECK_USAGE = "tablegate check <file...> [--contract <c>] [--report <format>=<path>]... [--max-findings N] [--fail-on error|warning]";
+export const CHECK_USAGE =
+  "tablegate check [<file...>] [--contract <c>] [--report <format>=<path>]... [--max-findings N] [--fail-on error|warning] [--changed-since <git-rev>] [--require-contract]";
 
-/** `tablegate check`: judge deliveries against contracts; 0 pass, 1 fail, 2 could not judge. */
+const OPTIONS = {
+  contract: { type: "string", short: "c" },
+  report: { type: "string", short: "r", multiple: true },
+  "max-findings": { type: "string" },
+  "fail-on": { type: "string" },
+  "changed-since": { type: "string" },
+  "require-contract": { type: "boolean" },
+} as const;
+
+interface Job {
+  readonly file: string;
+  readonly contract: string;
+}
+
+/**
+ * `tablegate check`: judge deliveries against contracts; 0 pass, 1 fail, 2 could not judge.
+ * Without --contract, tablegate.yaml routes each file (or, with no files named, every file its
+ * globs match) to its contract.
+ */
 export async function check(argv: readonly string[], io: Io): Promise<number> {
-  let args;
+  let parsed;
   try {
-    args = parseArgs({
-      args: [...argv],
-      allowPositionals: true,
-      options: {
-        contract: { type: "string", short: "c" },
-        report: { type: "string", short: "r", multiple: true },
-        "max-findings": { type: "string" },
-        "fail-on": { type: "string" },
-      },
-    });
+    parsed = parseArgs({ args: [...argv], allowPositionals: true, options: OPTIONS });
   } catch (e) {
     return badArgument(io, `${(e as Error).message}\nusage: ${CHECK_USAGE}`);
   }
-  const { values, positionals } = args;
-  if (positionals.length === 0) return badArgument(io, `check needs at least one delivery file\nusage: ${CHECK_USAGE}`);
+  const { values, positionals } = parsed;
   const maxFindings = values["max-findings"] === undefined ? 1000 : Number(values["max-findings"]);
-  if (!Number.isInteger(maxFindings) || maxFindings < 0) return badArgument(io, `invalid option --max-findings: expected a whole number, got ${JSON.stringify(values["max-findings"])}`);
+  if (!/^\d+$/.test(values["max-findings"] ?? "0")) return badArgument(io, `invalid option --max-findings: expected a whole number, got ${JSON.stringify(values["max-findings"])}`);
   const failOn = values["fail-on"] ?? "error";
   if (failOn !== "error" && failOn !== "warning") return badArgument(io, `invalid option --fail-on: expected error or warning, got ${JSON.stringify(failOn)}`);
   const targets = parseReportTargets(values.report ?? []);
   if (!targets.ok) return badArgument(io, targets.message);
-  if (values.contract === undefined) return badArgument(io, "check needs --contract <file> (mapping files to contracts through tablegate.yaml comes with project configuration)");
 
   const root = findRoot(io.cwd);
-  const registry = await loadRegistry(root);
+  const config = await loadProjectConfig(root);
+  if (!config.ok) return unusable(io, config.problems);
+  const rel = (p: string) => reportPath(root, isAbsolute(p) ? p : join(io.cwd, p));
+  const planned = await planJobs(root, config.value, positionals.map(rel), values.contract === undefined ? undefined : rel(values.contract), values["changed-since"]);
+  if (!planned.ok) return unusable(io, planned.problems);
+  const { jobs, unclaimed } = planned.value;
+  if (jobs.length === 0 && unclaimed.length === 0 && values["changed-since"] === undefined) {
+    return badArgument(io, `nothing to check: name delivery files, or list deliveries in tablegate.yaml\nusage: ${CHECK_USAGE}`);
+  }
+
+  const registry = await loadRegistry(root, config.value.registries);
   if (!registry.ok) return unusable(io, registry.problems);
-  const plan = await loadPlan(root, values.contract, registry.value, io);
-  if (!plan.ok) return unusable(io, plan.problems);
+  const plans = new Map<string, Plan>();
   const reports: DeliveryReport[] = [];
-  for (const file of positionals) {
-    const r = await checkFile(plan.value, resolvePath(io.cwd, file), {
-      reportPath: reportPath(root, resolvePath(io.cwd, file)),
-      contractPath: reportPath(root, resolvePath(io.cwd, values.contract)),
-      maxFindings,
-      failOn: failOn as Level,
-    });
-    if (!r.ok) return unusable(io, r.problems);
+  for (const job of jobs) {
+    let plan = plans.get(job.contract);
+    if (!plan) {
+      const loaded = await loadPlan(root, job.contract, registry.value);
+      if (!loaded.ok) return unusable(io, loaded.problems);
+      plan = loaded.value;
+      plans.set(job.contract, plan);
+    }
+    const r = await checkFile(plan, join(root, job.file), { reportPath: job.file, contractPath: job.contract, maxFindings, failOn: failOn as Level });
+    if (!r.ok) return unusable(io, r.problems.map((p) => ({ ...p, file: p.file === join(root, job.file) ? job.file : p.file })));
     reports.push(r.value);
   }
-  const written = await writeReports(reports, targets.value, io, root);
+  const written = await writeReports(reports, targets.value, io, root, unclaimed);
   if (!written.ok) return unusable(io, written.problems);
-  return reports.some((r) => r.verdict === "fail") ? EXIT.fail : EXIT.pass;
+  const failed = reports.some((r) => r.verdict === "fail") || (values["require-contract"] === true && unclaimed.length > 0);
+  return failed ? EXIT.fail : EXIT.pass;
 }
 
-function resolvePath(cwd: string, p: string): string {
-  return isAbsolute(p) ? p : join(cwd, p);
+/** Pair each delivery with its contract; files no contract claims are returned apart. */
+async function planJobs(root: string, config: ProjectConfig, files: string[], contract: string | undefined, since: string | undefined): Promise<Result<{ jobs: Job[]; unclaimed: string[] }>> {
+  let changed: Set<string> | undefined;
+  if (since !== undefined) {
+    const c = await changedSince(root, since);
+    if (!c.ok) return c;
+    changed = new Set(c.value);
+  }
+  let candidates = files;
+  if (candidates.length === 0) {
+    if (contract !== undefined) return { ok: false, problems: [{ file: "check", message: `name the delivery files to check against ${contract}` }] };
+    candidates = changed ? [...changed].filter((f) => DATA_FILE.test(f) || contractFor(config, f) !== undefined) : await routedFiles(root, config);
+  }
+  if (changed) candidates = candidates.filter((f) => changed.has(f));
+  if (contract !== undefined) return { ok: true, value: { jobs: candidates.map((file) => ({ file, contract })), unclaimed: [] } };
+  if (!config.present) {
+    return { ok: false, problems: [{ file: "check", message: "no --contract given and no tablegate.yaml at the repository root to say which contract judges which file" }] };
+  }
+  const jobs: Job[] = [];
+  const unclaimed: string[] = [];
+  for (const file of candidates) {
+    const c = contractFor(config, file);
+    if (c === undefined) unclaimed.push(file);
+    else jobs.push({ file, contract: c });
+  }
+  return { ok: true, value: { jobs, unclaimed } };
 }
 
-async function loadPlan(root: string, contract: string, registry: Registry, io: Io): Promise<{ ok: true; value: Plan } | { ok: false; problems: readonly Problem[] }> {
-  const path = resolvePath(io.cwd, contract);
-  const shown = reportPath(root, path);
-  const loaded = await loadContract(path, { registry });
-  if (!loaded.ok) return { ok: false, problems: loaded.problems.map((p) => ({ ...p, file: p.file === path ? shown : p.file })) };
+async function loadPlan(root: string, contract: string, registry: Registry): Promise<Result<Plan>> {
+  const loaded = await loadContract(join(root, contract), { registry, label: contract });
+  if (!loaded.ok) return loaded;
   const lock = await verifyLock(root, registry, loaded.value.references.map((r) => r.table));
-  if (!lock.ok) return lock;
-  return loaded;
+  return lock.ok ? loaded : (lock as { ok: false; problems: readonly Problem[] });
 }

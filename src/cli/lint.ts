@@ -16,13 +16,13 @@ export async function lint(argv: readonly string[], io: Io): Promise<number> {
   for (const file of argv) {
     const path = isAbsolute(file) ? file : join(io.cwd, file);
     const shown = reportPath(root, path);
-    const loaded = await loadContract(path, { registry: registry.value });
+    const loaded = await loadContract(path, { registry: registry.value, label: shown });
     if (loaded.ok) {
       io.stdout(`${shown}: ok (${loaded.value.checks.length} checks)\n`);
       continue;
     }
     bad++;
-    for (const p of loaded.problems) io.stderr(`tablegate: ${formatProblem({ ...p, file: p.file === path ? shown : p.file })}\n`);
+    for (const p of loaded.problems) io.stderr(`tablegate: ${formatProblem({ ...p, file: p.file })}\n`);
   }
   return bad > 0 ? EXIT.unusable : EXIT.pass;
 }

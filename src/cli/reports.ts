@@ -27,9 +27,9 @@ export function parseReportTargets(values: readonly string[]): { ok: true; value
 }
 
 /** Write every requested report; text goes to stdout unless another report already does. */
-export async function writeReports(reports: readonly DeliveryReport[], targets: readonly ReportTarget[], io: Io, root: string): Promise<Result<void>> {
+export async function writeReports(reports: readonly DeliveryReport[], targets: readonly ReportTarget[], io: Io, root: string, unclaimed: readonly string[] = []): Promise<Result<void>> {
   const all = targets.some((t) => t.path === "-") ? targets : [{ format: "text" as const, path: "-" }, ...targets];
-  const ctx = { root, toolVersion: TOOL_VERSION, env: io.env };
+  const ctx = { root, toolVersion: TOOL_VERSION, unclaimed };
   for (const t of all) {
     const body = WRITERS[t.format](reports, ctx);
     if (t.path === "-") {

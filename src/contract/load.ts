@@ -19,6 +19,8 @@ function validateContract(): ValidateFunction {
 
 export interface LoadOptions {
   readonly registry: Registry;
+  /** How problems and the plan name the file; default: the path as given. */
+  readonly label?: string;
   /** Days since 1970-01-01 taken as today (tests); default: the real date, UTC. */
   readonly today?: number;
 }
@@ -38,11 +40,12 @@ export function compileContract(file: string, text: string, options: LoadOptions
 /** Read and compile a contract file; an unreadable file is a problem naming it. */
 export async function loadContract(file: string, options: LoadOptions): Promise<Result<Plan>> {
   let text: string;
+  const label = options.label ?? file;
   try {
     text = await readFile(file, "utf8");
   } catch (e) {
-    const problem: Problem = { file, message: `cannot read contract: ${(e as NodeJS.ErrnoException).code === "ENOENT" ? "no such file" : (e as Error).message}` };
+    const problem: Problem = { file: label, message: `cannot read contract: ${(e as NodeJS.ErrnoException).code === "ENOENT" ? "no such file" : (e as Error).message}` };
     return { ok: false, problems: [problem] };
   }
-  return compileContract(file, text, options);
+  return compileContract(label, text, options);
 }

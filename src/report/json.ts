@@ -28,14 +28,16 @@ export function deliveryJson(r: DeliveryReport): Record<string, unknown> {
  * The JSON report. One delivery: exactly the SPEC §4 object. Several (a run over many files): an
  * envelope with the overall verdict and counts, and each delivery's object under `deliveries`.
  */
-export const json: Writer = (reports) => {
-  if (reports.length === 1 && reports[0]) return JSON.stringify(deliveryJson(reports[0]), null, 2) + "\n";
+export const json: Writer = (reports, ctx) => {
+  const unclaimed = ctx.unclaimed ?? [];
+  if (reports.length === 1 && reports[0] && unclaimed.length === 0) return JSON.stringify(deliveryJson(reports[0]), null, 2) + "\n";
   const sum = (k: "error" | "warning" | "note" | "rows_failed") => reports.reduce((n, r) => n + r.counts[k], 0);
   return JSON.stringify({
     report: 1,
-    tool: reports[0]?.tool ?? { name: "tablegate" },
+    tool: { name: "tablegate", version: ctx.toolVersion },
     verdict: reports.some((r) => r.verdict === "fail") ? "fail" : "pass",
     counts: { error: sum("error"), warning: sum("warning"), note: sum("note"), rows_failed: sum("rows_failed") },
     deliveries: reports.map(deliveryJson),
+    ...(unclaimed.length === 0 ? {} : { unclaimed }),
   }, null, 2) + "\n";
 };

@@ -34,4 +34,7 @@ function delivery(r: DeliveryReport): string {
 }
 
 /** The report for people reading a terminal or a CI log: per delivery, failed checks by severity, with examples. */
-export const text: Writer = (reports) => reports.map(delivery).join("\n\n") + "\n";
+export const text: Writer = (reports, ctx) => {
+  const unclaimed = (ctx.unclaimed ?? []).map((f) => `NOTE    ${f}: no contract in tablegate.yaml claims this file; it was not checked`);
+  return [...reports.map(delivery), ...(unclaimed.length ? [unclaimed.join("\n")] : [])].join("\n\n") + "\n";
+};

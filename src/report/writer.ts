@@ -6,6 +6,8 @@ export interface WriterContext {
   readonly root: string;
   /** Tool version, for the SARIF driver and the like. */
   readonly toolVersion: string;
+  /** Files the run was asked about that no contract claims (root-relative). */
+  readonly unclaimed?: readonly string[];
 }
 
 /** A pure function from the reports of one run to the text of one output format. */

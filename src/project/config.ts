@@ -1,0 +1,55 @@
+import { readFile } from "node:fs/promises";
+import { join } from "node:path";
+import { Ajv2020, type ValidateFunction } from "ajv/dist/2020.js";
+import { schemaProblems } from "../contract/schema-errors.js";
+import { problemAt, parseYamlSource } from "../contract/yaml-source.js";
+import type { Problem, Result } from "../problem.js";
+import { readSchema } from "../schema/locate.js";
+import { globToRegExp } from "./glob.js";
+
+export const PROJECT_FILE = "tablegate.yaml";
+
+export interface DeliveryRoute {
+  readonly globs: readonly string[];
+  readonly matchers: readonly RegExp[];
+  /** Contract path relative to the root. */
+  readonly contract: string;
+}
+
+/** The project file, or its defaults when the repository has none. */
+export interface ProjectConfig {
+  readonly registries: readonly { readonly spec: string; readonly at?: Problem }[];
+  readonly routes: readonly DeliveryRoute[];
+  readonly present: boolean;
+}
+
+let validator: ValidateFunction | undefined;
+
+/** Read `tablegate.yaml` at the root; absent means no routes and no further registries. */
+export async function loadProjectConfig(root: string): Promise<Result<ProjectConfig>> {
+  let text: string;
+  try {
+    text = await readFile(join(root, PROJECT_FILE), "utf8");
+  } catch {
+    return { ok: true, value: { registries: [], routes: [], present: false } };
+  }
+  const src = parseYamlSource(PROJECT_FILE, text);
+  if (src.syntaxProblems.length > 0) return { ok: false, problems: src.syntaxProblems };
+  const data = src.doc.toJS({ maxAliasCount: 100 }) as {
+    registries?: string[];
+    deliveries?: { files: string | string[]; contract: string }[];
+  };
+  validator ??= new Ajv2020({ strict: true, allErrors: true, verbose: true }).compile(readSchema("project.schema.json"));
+  if (!validator(data)) return { ok: false, problems: schemaProblems(src, data, validator.errors ?? []) };
+  const routes = (data.deliveries ?? []).map((d) => {
+    const globs = typeof d.files === "string" ? [d.files] : d.files;
+    return { globs, matchers: globs.map(globToRegExp), contract: d.contract };
+  });
+  const registries = (data.registries ?? []).map((spec, i) => ({ spec, at: problemAt(src, ["registries", i], "") }));
+  return { ok: true, value: { registries, routes, present: true } };
+}
+
+/** The contract that claims a root-relative path: the first route whose glob matches. */
+export function contractFor(config: ProjectConfig, relPath: string): string | undefined {
+  return config.routes.find((r) => r.matchers.some((m) => m.test(relPath)))?.contract;
+}
