@@ -1,0 +1,214 @@
+import { parseArgs } from "node:util";
+import { formatProblem, type Problem } from "../problem.js";
+import {
+  compareLock,
+  diffTables,
+  isEmptyDiff,
+  LOCK_FILE,
+  lockIssueProblem,
+  loadRegistry,
+  readLock,
+  revisionWithContent,
+  tableAtRevision,
+  writeLock,
+  type LockIssue,
+  type RefTable,
+  type Registry,
+  type RegistryRoot,
+  type TableDiff,
+} from "../registry/index.js";
+import { findRoot } from "./root.js";
+
+/** What `ref` needs of the outside world (a subset of the CLI's Io). */
+export interface RefIo {
+  readonly stdout: (s: string) => void;
+  readonly stderr: (s: string) => void;
+  readonly cwd: string;
+}
+
+/** Further registries (from tablegate.yaml), passed in by the caller that read the project file. */
+export interface RefOptions {
+  readonly registries?: readonly RegistryRoot[];
+}
+
+export const REF_USAGE = "tablegate ref list [--json] | show <table> [--page N] [--page-size N] | lint | lock | diff <table> [--from <git-rev>] [--json]";
+
+const PASS = 0;
+const FAIL = 1;
+const UNUSABLE = 2;
+
+type Sub = (positionals: readonly string[], values: Values, ctx: Ctx) => Promise<number>;
+
+interface Values {
+  readonly json?: boolean;
+  readonly from?: string;
+  readonly page?: string;
+  readonly "page-size"?: string;
+}
+
+interface Ctx {
+  readonly io: RefIo;
+  readonly root: string;
+  readonly roots: readonly RegistryRoot[];
+}
+
+function problems(io: RefIo, list: readonly Problem[], status = UNUSABLE): number {
+  for (const p of list) io.stderr(`tablegate: ${formatProblem(p)}\n`);
+  return status;
+}
+
+function bad(io: RefIo, message: string): number {
+  io.stderr(`tablegate: ${message}\nusage: ${REF_USAGE}\n`);
+  return UNUSABLE;
+}
+
+async function registryOr(ctx: Ctx): Promise<Registry | number> {
+  const r = await loadRegistry(ctx.root, ctx.roots);
+  return r.ok ? r.value : problems(ctx.io, r.problems);
+}
+
+function lockState(t: RefTable, issues: readonly LockIssue[]): string {
+  if (t.builtIn) return "built-in";
+  const issue = issues.find((i) => i.table === t.name);
+  return issue ? (issue.kind === "changed" ? "differs from lock" : "not locked") : "locked";
+}
+
+const list: Sub = async (_p, values, ctx) => {
+  const reg = await registryOr(ctx);
+  if (typeof reg === "number") return reg;
+  const lock = await readLock(ctx.root);
+  if (!lock.ok) return problems(ctx.io, lock.problems);
+  const issues = compareLock(lock.value, reg);
+  const rows = reg.tables().map((t) => ({ table: t.name, version: t.version, rows: t.rows, key: t.key, columns: t.columns, origin: t.origin, lock: lockState(t, issues), description: t.description ?? "" }));
+  if (values.json) {
+    ctx.io.stdout(JSON.stringify(rows, null, 2) + "\n");
+    return PASS;
+  }
+  ctx.io.stdout(columns([["table", "version", "rows", "key", "lock", "origin"], ...rows.map((r) => [r.table, r.version, String(r.rows), r.key, r.lock, r.origin])]));
+  return PASS;
+};
+
+const show: Sub = async (positionals, values, ctx) => {
+  const [name] = positionals;
+  if (name === undefined || positionals.length > 1) return bad(ctx.io, "ref show needs one table name");
+  const page = wholeNumber(values.page ?? "1", 1);
+  const size = wholeNumber(values["page-size"] ?? "50", 1);
+  if (page === undefined || size === undefined) return bad(ctx.io, "--page and --page-size take whole numbers from 1");
+  const reg = await registryOr(ctx);
+  if (typeof reg === "number") return reg;
+  const t = reg.table(name);
+  if (!t) return bad(ctx.io, `unknown table "${name}" (tables: ${reg.tables().map((x) => x.name).join(", ")})`);
+  const keys = t.keys().slice((page - 1) * size, page * size);
+  const pages = Math.max(1, Math.ceil(t.rows / size));
+  const out = ctx.io.stdout;
+  out(`${t.name} ${t.version}: ${t.rows} rows, key ${t.key}, ${t.file}\n`);
+  if (t.source) out(`source: ${t.source}\n`);
+  if (t.description) out(`${t.description}\n`);
+  out("\n" + columns([[...t.columns], ...keys.map((k) => [...(t.row(k) ?? [])])]));
+  out(`\npage ${page} of ${pages}${page < pages ? ` (next: --page ${page + 1})` : ""}\n`);
+  return PASS;
+};
+
+const lint: Sub = async (_p, _v, ctx) => {
+  const reg = await loadRegistry(ctx.root, ctx.roots);
+  if (!reg.ok) return problems(ctx.io, reg.problems, FAIL);
+  const lock = await readLock(ctx.root);
+  if (!lock.ok) return problems(ctx.io, lock.problems, FAIL);
+  const issues = compareLock(lock.value, reg.value);
+  if (issues.length > 0) return problems(ctx.io, issues.map(lockIssueProblem), FAIL);
+  ctx.io.stdout(`registry ok: ${reg.value.tables().length} tables, lock matches\n`);
+  return PASS;
+};
+
+const lock: Sub = async (_p, _v, ctx) => {
+  const reg = await registryOr(ctx);
+  if (typeof reg === "number") return reg;
+  const written = await writeLock(ctx.root, reg);
+  if (!written.ok) return problems(ctx.io, written.problems);
+  const n = Object.keys(written.value.lock.tables).length;
+  ctx.io.stdout(written.value.changed ? `wrote ${LOCK_FILE} (${n} tables)\n` : `${LOCK_FILE} is up to date (${n} tables)\n`);
+  return PASS;
+};
+
+const diff: Sub = async (positionals, values, ctx) => {
+  const [name] = positionals;
+  if (name === undefined || positionals.length > 1) return bad(ctx.io, "ref diff needs one table name");
+  const reg = await registryOr(ctx);
+  if (typeof reg === "number") return reg;
+  const after = reg.table(name);
+  if (!after) return bad(ctx.io, `unknown table "${name}"`);
+  if (after.builtIn) return problems(ctx.io, [{ file: after.file, message: `table "${name}" is built in: it changes only with tablegate's own version` }]);
+  if (after.origin.startsWith("node_modules/")) return problems(ctx.io, [{ file: after.origin, message: `table "${name}" comes from an npm package, which is not in git history; compare package versions instead` }]);
+  let rev = values.from;
+  if (rev === undefined) {
+    const lockFile = await readLock(ctx.root);
+    if (!lockFile.ok) return problems(ctx.io, lockFile.problems);
+    const entry = lockFile.value?.tables[name];
+    if (!entry) return problems(ctx.io, [{ file: LOCK_FILE, message: `table "${name}" is not in the lock; give --from <git-rev>` }]);
+    if (entry.sha256 === after.sha256) {
+      ctx.io.stdout(values.json ? JSON.stringify(emptyDiff(after), null, 2) + "\n" : `${name}: same content as the lock\n`);
+      return PASS;
+    }
+    const found = await revisionWithContent(ctx.root, entry.file, entry.sha256);
+    if (!found.ok) return problems(ctx.io, found.problems);
+    if (found.value === undefined) return problems(ctx.io, [{ file: LOCK_FILE, message: `the locked content of "${name}" is not in the git history of ${entry.file}; give --from <git-rev>` }]);
+    rev = found.value;
+  }
+  const before = await tableAtRevision(ctx.root, rev, name, after.origin);
+  if (!before.ok) return problems(ctx.io, before.problems);
+  const d = diffTables(before.value, after);
+  ctx.io.stdout(values.json ? JSON.stringify({ ...d, from: rev }, null, 2) + "\n" : renderDiff(d, rev));
+  return PASS;
+};
+
+function emptyDiff(t: RefTable): TableDiff {
+  return { table: t.name, versionBefore: t.version, versionAfter: t.version, columnsAdded: [], columnsRemoved: [], added: [], removed: [], changed: [] };
+}
+
+/** A diff for people: one line per key, + added, - removed, ~ changed with its cells. */
+function renderDiff(d: TableDiff, rev: string): string {
+  const lines = [`${d.table}: ${rev.slice(0, 12)} (${d.versionBefore}) -> working copy (${d.versionAfter})`];
+  if (isEmptyDiff(d)) lines.push("no row or column changes");
+  if (d.columnsAdded.length > 0) lines.push(`columns added: ${d.columnsAdded.join(", ")}`);
+  if (d.columnsRemoved.length > 0) lines.push(`columns removed: ${d.columnsRemoved.join(", ")}`);
+  for (const k of d.added) lines.push(`+ ${k}`);
+  for (const k of d.removed) lines.push(`- ${k}`);
+  for (const c of d.changed) lines.push(`~ ${c.key}: ${c.changes.map((x) => `${x.column} ${JSON.stringify(x.before)} -> ${JSON.stringify(x.after)}`).join("; ")}`);
+  lines.push(`${d.added.length} added, ${d.removed.length} removed, ${d.changed.length} changed`);
+  return lines.join("\n") + "\n";
+}
+
+function wholeNumber(text: string, min: number): number | undefined {
+  const n = Number(text);
+  return /^[0-9]+$/.test(text) && n >= min ? n : undefined;
+}
+
+/** Left-aligned columns separated by two spaces. */
+function columns(rows: readonly (readonly string[])[]): string {
+  const widths: number[] = [];
+  for (const r of rows) r.forEach((c, i) => (widths[i] = Math.max(widths[i] ?? 0, c.length)));
+  return rows.map((r) => r.map((c, i) => (i === r.length - 1 ? c : c.padEnd(widths[i] ?? 0))).join("  ").trimEnd()).join("\n") + "\n";
+}
+
+const SUBS: Readonly<Record<string, Sub>> = { list, show, lint, lock, diff };
+
+/**
+ * `tablegate ref ...`: list, show, lint, lock and diff the registry. Returns the exit status: 0 done,
+ * 1 lint found problems, 2 bad arguments or a registry that cannot be loaded.
+ */
+export async function runRef(args: readonly string[], io: RefIo, options: RefOptions = {}): Promise<number> {
+  const [subName, ...rest] = args;
+  const sub = subName === undefined ? undefined : Object.hasOwn(SUBS, subName) ? SUBS[subName] : undefined;
+  if (!sub) return bad(io, subName === undefined ? "ref needs a subcommand" : `unknown ref subcommand "${subName}"`);
+  let parsed;
+  try {
+    parsed = parseArgs({
+      args: [...rest],
+      allowPositionals: true,
+      options: { json: { type: "boolean" }, from: { type: "string" }, page: { type: "string" }, "page-size": { type: "string" } },
+    });
+  } catch (e) {
+    return bad(io, (e as Error).message);
+  }
+  return sub(parsed.positionals, parsed.values, { io, root: findRoot(io.cwd), roots: options.registries ?? [] });
+}
