@@ -11,6 +11,10 @@ export interface CsvDialect {
 
 /** A csv-parse parser for the dialect, or the reason the dialect is unusable (e.g. delimiter equals quote). */
 export function createCsvParser(dialect: CsvDialect): { parser: Parser } | { error: string } {
+  const { delimiter, quote } = dialect;
+  if (delimiter === "" || /[\r\n]/.test(delimiter)) return { error: `Invalid option delimiter: expected text without line breaks, got ${JSON.stringify(delimiter)}` };
+  if (quote !== null && (quote.length !== 1 || /[\r\n]/.test(quote))) return { error: `Invalid option quote: expected one character other than a line break, got ${JSON.stringify(quote)}` };
+  if (quote !== null && delimiter.includes(quote)) return { error: `Invalid option delimiter: expected no quote character in it, got ${JSON.stringify(delimiter)}` };
   try {
     const parser = new Parser({
       delimiter: dialect.delimiter,
