@@ -9,14 +9,19 @@ import type { BinaryOp, Node } from "./ast.js";
 import { describe, tokenize, type SyntaxFailure, type Token } from "./lexer.js";
 
 const COMPARISONS: ReadonlySet<string> = new Set(["=", "<>", "<", "<=", ">", ">="]);
+/** Bounds that keep a hostile contract from exhausting the stack of the recursive parser and compiler. */
+const MAX_LENGTH = 4000;
+const MAX_DEPTH = 64;
 
 /** The syntax tree of `source`, or the offset and message of the first syntax error. */
 export function parse(source: string): { ok: true; node: Node } | SyntaxFailure {
+  if (source.length > MAX_LENGTH) return { ok: false, offset: MAX_LENGTH, message: `the expression is longer than ${MAX_LENGTH} characters; split it into several rules` };
   const lexed = tokenize(source);
   if (!lexed.ok) return lexed;
   const tokens = lexed.tokens;
   let pos = 0;
   let failure: SyntaxFailure | null = null;
+  let depth = 0;
 
   const peek = (ahead = 0): Token => (tokens[Math.min(pos + ahead, tokens.length - 1)] as Token);
   const next = (): Token => {
@@ -62,11 +67,20 @@ export function parse(source: string): { ok: true; node: Node } | SyntaxFailure 
     return left;
   }
 
+  /** Run a nested parse one level deeper, refusing to go past MAX_DEPTH. */
+  function nested(opener: Token, parseInner: () => Node | null): Node | null {
+    if (depth >= MAX_DEPTH) return fail(opener, `the expression nests deeper than ${MAX_DEPTH} levels; simplify it`);
+    depth++;
+    const node = parseInner();
+    depth--;
+    return node;
+  }
+
   function parseNot(): Node | null {
     if (!isKw(peek(), "NOT")) return parseIs();
-    const start = next().start;
-    const operand = parseNot();
-    return operand === null ? null : { type: "unary", op: "not", operand, start, end: operand.end };
+    const not = next();
+    const operand = nested(not, parseNot);
+    return operand === null ? null : { type: "unary", op: "not", operand, start: not.start, end: operand.end };
   }
 
   function parseIs(): Node | null {
@@ -136,7 +150,7 @@ export function parse(source: string): { ok: true; node: Node } | SyntaxFailure 
       next();
       const items: Node[] = [];
       for (;;) {
-        const item = parseOr();
+        const item = nested(open, parseOr);
         if (item === null) return null;
         items.push(item);
         if (!isOp(peek(), ",")) break;
@@ -181,7 +195,7 @@ export function parse(source: string): { ok: true; node: Node } | SyntaxFailure 
     const t = peek();
     if (isOp(t, "-") || isOp(t, "+")) {
       next();
-      const operand = parseUnary();
+      const operand = nested(t, parseUnary);
       return operand === null ? null : { type: "unary", op: t.value as "-" | "+", operand, start: t.start, end: operand.end };
     }
     return parsePrimary();
@@ -243,7 +257,7 @@ export function parse(source: string): { ok: true; node: Node } | SyntaxFailure 
           star = true;
         } else if (!isOp(peek(), ")")) {
           for (;;) {
-            const arg = parseOr();
+            const arg = nested(open, parseOr);
             if (arg === null) return null;
             args.push(arg);
             if (!isOp(peek(), ",")) break;
@@ -257,7 +271,7 @@ export function parse(source: string): { ok: true; node: Node } | SyntaxFailure 
       case "op":
         if (t.value === "(") {
           next();
-          const inner = parseOr();
+          const inner = nested(t, parseOr);
           if (inner === null || !closeParen(t)) return null;
           return inner;
         }
@@ -272,7 +286,7 @@ export function parse(source: string): { ok: true; node: Node } | SyntaxFailure 
           next();
           return { type: "null", start: t.start, end: t.end };
         }
-        if (t.value === "CASE") return parseCase(next());
+        if (t.value === "CASE") return nested(t, () => parseCase(next()));
         if (t.value === "DATE" || t.value === "TIME" || t.value === "TIMESTAMP") {
           next();
           const lit = peek();

@@ -29,5 +29,5 @@ export function comparable(a: ExprType, b: ExprType): boolean {
 
 /** How a type reads in a message. */
 export function typeName(t: ExprType): string {
-  return t === "any" ? "a value" : t === "null" ? "NULL" : t === "number" || t === "text" || t === "boolean" ? `a ${t}` : `a ${t}`;
+  return t === "any" ? "a value" : t === "null" ? "NULL" : `a ${t}`;
 }

@@ -94,3 +94,16 @@ describe("name and type errors", () => {
     }
   });
 });
+
+describe("limits against hostile contracts", () => {
+  test("deep nesting is refused at the first level too deep, not by a stack overflow", () => {
+    expect(errorOffset("(".repeat(1000) + "qty > 1" + ")".repeat(1000), env)).toBe(64);
+    expect(errorOffset("NOT ".repeat(500) + "ok", env)).toBe(64 * 4);
+    expect(errorOffset("qty IN (".repeat(100) + "1" + ")".repeat(100), env)).toBe(64 * 8 + 7); // the 65th list's "("
+    expect(errorOffset("(".repeat(60) + "qty > 1" + ")".repeat(60), env)).toBe("ok");
+  });
+  test("an overlong expression is refused at the limit", () => {
+    expect(errorOffset(`qty > 1${" OR qty > 1".repeat(500)}`, env)).toBe(4000);
+    expect(errorOffset(`qty > 1${" OR qty > 1".repeat(300)}`, env)).toBe("ok");
+  });
+});
