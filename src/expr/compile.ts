@@ -13,7 +13,7 @@ import { add, divide, multiply, negate, remainder, subtract } from "./arithmetic
 import { compileLike } from "./like.js";
 import { KEYWORDS } from "./lexer.js";
 import { parse } from "./parser.js";
-import { findNestedQuantifier } from "./regex-guard.js";
+import { compileSafeRegex } from "../safe-regex.js";
 import { nearest } from "./suggest.js";
 import type { AggregateCall, CompileResult, CompiledExpr, Eval, ExprEnv, ExprType } from "./types.js";
 import { comparable, typeName, typeOfColumn, unify } from "./typing.js";
@@ -310,26 +310,14 @@ function makeCompiler(source: string, env: ExprEnv) {
   }
 
   function compileMatches(node: NodeOf<"call">): C | null {
-    const [subjectNode, patternNode, flagsNode] = node.args;
-    if (node.args.length < 2 || node.args.length > 3 || subjectNode === undefined || patternNode === undefined) {
-      return fail(node.args[3]?.start ?? node.end - 1, `matches() takes 2 arguments, matches(text, 'regex'), found ${node.args.length}`);
+    const [subjectNode, patternNode] = node.args;
+    if (node.args.length !== 2 || subjectNode === undefined || patternNode === undefined) {
+      return fail(node.args[2]?.start ?? node.end - 1, `matches() takes 2 arguments, matches(text, 'regex'), found ${node.args.length}`);
     }
     if (patternNode.type !== "text") return fail(patternNode.start, "expected the regular expression as quoted text (it is compiled once, so it cannot come from the row)");
-    let flags = "";
-    if (flagsNode !== undefined) {
-      if (flagsNode.type !== "text" || !/^[ims]*$/.test(flagsNode.value) || new Set(flagsNode.value).size !== flagsNode.value.length) {
-        return fail(flagsNode.start, "expected regex flags as quoted text made of i, m and s, like 'i'");
-      }
-      flags = flagsNode.value;
-    }
-    const nested = findNestedQuantifier(patternNode.value);
-    if (nested !== null) return fail(contentOffset(patternNode, nested.index), nested.message);
-    let re: RegExp;
-    try {
-      re = new RegExp(patternNode.value, `u${flags}`);
-    } catch (e) {
-      return fail(patternNode.start, `invalid regular expression (ECMAScript, u flag): ${(e as Error).message}`);
-    }
+    // The same dialect and linear-time guarantee as a column's `pattern`.
+    const re = compileSafeRegex(patternNode.value);
+    if (!(re instanceof RegExp)) return fail(contentOffset(patternNode, re.offset), re.message);
     const subject = compile(subjectNode);
     if (subject === null) return null;
     const s = subject.fn;

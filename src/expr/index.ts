@@ -2,5 +2,4 @@
 export { compileExpression } from "./compile.js";
 export { createAccumulator } from "./aggregate.js";
 export { isFalse, isTrue } from "./truth.js";
-export { findNestedQuantifier } from "./regex-guard.js";
 export type { AggregateCall, CompileResult, CompiledExpr, ExprEnv, ExprType, ReferenceLookup } from "./types.js";
