@@ -12,6 +12,8 @@ export interface CheckOptions {
   readonly contractPath: string;
   readonly maxFindings?: number;
   readonly failOn?: Level;
+  /** Summarise every column (for the HTML report). */
+  readonly profile?: boolean;
 }
 
 /**
@@ -30,7 +32,10 @@ export async function checkFile(plan: Plan, file: string, options: CheckOptions)
   });
   if (!opened.ok) return opened;
   const delivery = opened.value;
-  const { rows, collector } = await runPlan(plan, delivery.records, () => delivery.structureBreak(), { maxFindings: options.maxFindings ?? 1000 });
+  const { rows, collector, profile } = await runPlan(plan, delivery.records, () => delivery.structureBreak(), {
+    maxFindings: options.maxFindings ?? 1000,
+    profile: options.profile === true,
+  });
   const summary = delivery.summary();
   const report = buildReport({
     plan,
@@ -40,5 +45,5 @@ export async function checkFile(plan: Plan, file: string, options: CheckOptions)
     failOn: options.failOn ?? "error",
     input: { path: options.reportPath, sha256: summary.sha256, bytes: summary.bytes, rows, format: plan.input.format, encoding: summary.encoding },
   });
-  return { ok: true, value: report };
+  return { ok: true, value: profile ? { ...report, profile } : report };
 }

@@ -73,7 +73,13 @@ export async function check(argv: readonly string[], io: Io): Promise<number> {
       plan = loaded.value;
       plans.set(job.contract, plan);
     }
-    const r = await checkFile(plan, join(root, job.file), { reportPath: job.file, contractPath: job.contract, maxFindings, failOn: failOn as Level });
+    const r = await checkFile(plan, join(root, job.file), {
+      reportPath: job.file,
+      contractPath: job.contract,
+      maxFindings,
+      failOn: failOn as Level,
+      profile: targets.value.some((t) => (t.format as string) === "html"),
+    });
     if (!r.ok) return unusable(io, r.problems.map((p) => ({ ...p, file: p.file === join(root, job.file) ? job.file : p.file })));
     reports.push(r.value);
   }

@@ -1,23 +1,27 @@
 import type { Plan } from "../contract/plan.js";
 import { isFalse, isTrue } from "../expr/index.js";
 import type { RawRecord, StructureBreak } from "../input/index.js";
-import type { Finding, Level } from "../report/model.js";
+import type { ColumnProfile, Finding, Level } from "../report/model.js";
 import type { Value } from "../values.js";
 import { createCollector, type Collector } from "./collector.js";
 import { createFileEnd } from "./file-end.js";
 import { matchHeader, positional, type HeaderMatch } from "./header.js";
+import { createProfiler } from "./profile.js";
 import { createRowHasher } from "./row-hash.js";
 import { createSeenSet } from "./seen-set.js";
 import { shownValue } from "./shown.js";
 
 export interface EngineOptions {
   readonly maxFindings: number;
+  /** Also summarise every column for people (the HTML report). */
+  readonly profile?: boolean;
 }
 
 export interface EngineOutcome {
   /** Data records read (the header is not one; a ragged record is). */
   readonly rows: number;
   readonly collector: Collector;
+  readonly profile?: ColumnProfile[];
 }
 
 /**
@@ -40,6 +44,7 @@ export async function runPlan(plan: Plan, batches: AsyncIterable<readonly RawRec
   const dupSet = plan.duplicates === undefined ? undefined : createSeenSet();
   const hasher = createRowHasher();
   const end = createFileEnd(plan, out);
+  const profiler = options.profile ? createProfiler(plan) : undefined;
   let header: HeaderMatch | undefined = plan.input.header === "none" ? positional(plan) : undefined;
   let rows = 0;
 
@@ -149,6 +154,7 @@ export async function runPlan(plan: Plan, batches: AsyncIterable<readonly RawRec
       });
     }
     end.row(values, texts, raws, state, rowNo, line);
+    profiler?.row(values, texts, state);
   };
 
   for await (const batch of batches) {
@@ -174,5 +180,5 @@ export async function runPlan(plan: Plan, batches: AsyncIterable<readonly RawRec
     }
   }
   end.finish(rows);
-  return { rows, collector: out };
+  return { rows, collector: out, ...(profiler ? { profile: profiler.result() } : {}) };
 }
