@@ -12,8 +12,8 @@ export interface CsvDialect {
 /** A csv-parse parser for the dialect, or the reason the dialect is unusable (e.g. delimiter equals quote). */
 export function createCsvParser(dialect: CsvDialect): { parser: Parser } | { error: string } {
   const { delimiter, quote } = dialect;
-  if (delimiter === "" || /[\r\n]/.test(delimiter)) return { error: `Invalid option delimiter: expected text without line breaks, got ${JSON.stringify(delimiter)}` };
-  if (quote !== null && (quote.length !== 1 || /[\r\n]/.test(quote))) return { error: `Invalid option quote: expected one character other than a line break, got ${JSON.stringify(quote)}` };
+  if (delimiter === "" || /[\r\n\0]/.test(delimiter)) return { error: `Invalid option delimiter: expected text without line breaks or NUL, got ${JSON.stringify(delimiter)}` };
+  if (quote !== null && (quote.length !== 1 || /[\r\n\0]/.test(quote))) return { error: `Invalid option quote: expected one character other than a line break or NUL, got ${JSON.stringify(quote)}` };
   if (quote !== null && delimiter.includes(quote)) return { error: `Invalid option delimiter: expected no quote character in it, got ${JSON.stringify(delimiter)}` };
   try {
     const parser = new Parser({
@@ -106,6 +106,12 @@ export async function* readCsv(
     }
     return lineEnd + 1 + breaks;
   };
+  // csv-parse holds back the last few bytes of a chunk to see whether a line break or quote continues;
+  // when reading stops mid-file, these bytes (no delimiter, quote or line break) let it finish what came
+  // before. Whatever they start is never flushed, and an error they cause is not the file's.
+  const settle = (): void => {
+    if (parseError === undefined) parser._transform(SETTLE, "utf8", () => undefined);
+  };
   const take = (): RawRecord[] => {
     const out = batch;
     batch = [];
@@ -118,15 +124,21 @@ export async function* readCsv(
       const ok = feed(d.data);
       if (batch.length > 0) yield take();
       if (!ok) return stop(parseBreak(parseError, lineEnd + 1 + info.empty_lines - emptyEnd));
-      if (d.invalid !== undefined) return stop({ line: lineReached(), message: `reading stopped at ${d.invalid}` });
+      if (d.invalid !== undefined) {
+        settle();
+        if (batch.length > 0) yield take();
+        return stop({ line: lineReached(), message: `reading stopped at ${d.invalid}` });
+      }
     }
   } catch (e) {
+    settle();
     if (batch.length > 0) yield take();
     return stop({ line: lineReached(), message: `reading stopped: ${readError(e)}` });
   }
   const last = decoder.end();
   const ok = feed(last.data);
   if (ok && last.invalid !== undefined) {
+    settle();
     if (batch.length > 0) yield take();
     return stop({ line: lineReached(), message: `reading stopped at ${last.invalid}` });
   }
@@ -134,6 +146,8 @@ export async function* readCsv(
   if (batch.length > 0) yield take();
   if (parseError !== undefined) stop(parseBreak(parseError, lineEnd + 1 + info.empty_lines - emptyEnd));
 }
+
+const SETTLE = Buffer.alloc(8);
 
 /** A csv-parse error as a break at the line where the failing record starts. */
 function parseBreak(err: unknown, line: number): StructureBreak {

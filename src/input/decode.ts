@@ -102,15 +102,27 @@ function utf8Body(checker: Utf8Checker): Body {
 }
 
 /**
- * windows-1252 through the WHATWG decoder (0x80 is the euro sign); latin1 as ISO-8859-1 proper, where
- * every byte is the code point of the same number (the WHATWG standard would read `latin1` as windows-1252).
+ * Code points of bytes 0x80-0x9F in windows-1252, from the WHATWG Encoding Standard's index-windows-1252
+ * (the five bytes Microsoft leaves undefined map to the C1 control of the same number). Node 20's
+ * TextDecoder("windows-1252") decodes these bytes as ISO-8859-1 (0x80 gives U+0080), hence our own table.
+ */
+const CP1252_HIGH = String.fromCharCode(
+  0x20ac, 0x81, 0x201a, 0x192, 0x201e, 0x2026, 0x2020, 0x2021, 0x2c6, 0x2030, 0x160, 0x2039, 0x152, 0x8d, 0x17d, 0x8f,
+  0x90, 0x2018, 0x2019, 0x201c, 0x201d, 0x2022, 0x2013, 0x2014, 0x2dc, 0x2122, 0x161, 0x203a, 0x153, 0x9d, 0x17e, 0x178,
+);
+const C1 = /[\x80-\x9f]/g;
+const toCp1252 = (c: string): string => CP1252_HIGH.charAt(c.charCodeAt(0) - 0x80);
+
+/**
+ * windows-1252 (0x80 is the euro sign); latin1 as ISO-8859-1 proper, where every byte is the code point
+ * of the same number (the WHATWG standard would read the label `latin1` as windows-1252).
  */
 function singleByteBody(encoding: "windows-1252" | "latin1"): Body {
-  const decoder = encoding === "windows-1252" ? new TextDecoder("windows-1252") : undefined;
   return {
     decode(chunk) {
       if (isAscii(chunk)) return { data: chunk };
-      const text = decoder === undefined ? chunk.toString("latin1") : decoder.decode(chunk);
+      let text = chunk.toString("latin1");
+      if (encoding === "windows-1252") text = text.replace(C1, toCp1252);
       return { data: Buffer.from(text, "utf8") };
     },
     end: () => NOTHING,

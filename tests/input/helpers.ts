@@ -32,7 +32,7 @@ export async function readBytes(bytes: Buffer | string, options: Partial<InputOp
   const opened = await openDelivery(tempFile(bytes, suffix), { ...CSV, ...options });
   if (!opened.ok) throw new Error(opened.problems.map((p) => p.message).join("; "));
   const records: RawRecord[] = [];
-  for await (const batch of opened.value.records) records.push(...batch);
+  for await (const batch of opened.value.records) for (const r of batch) records.push(r);
   return {
     records,
     rows: records.map((r) => [...r.cells]),
@@ -63,6 +63,6 @@ export async function readChunked(bytes: Buffer, options: Partial<InputOptions>,
     gen = readCsv(made.parser, pieces(bytes, size), decoder, onStop);
   }
   const records: RawRecord[] = [];
-  for await (const batch of gen) records.push(...batch);
+  for await (const batch of gen) for (const r of batch) records.push(r);
   return { rows: records.map((r) => [...r.cells]), lines: records.map((r) => r.line), stop };
 }
