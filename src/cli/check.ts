@@ -78,7 +78,7 @@ export async function check(argv: readonly string[], io: Io): Promise<number> {
       contractPath: job.contract,
       maxFindings,
       failOn: failOn as Level,
-      profile: targets.value.some((t) => (t.format as string) === "html"),
+      profile: targets.value.some((t) => t.format === "html"),
     });
     if (!r.ok) return unusable(io, r.problems.map((p) => ({ ...p, file: p.file === join(root, job.file) ? job.file : p.file })));
     reports.push(r.value);

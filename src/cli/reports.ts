@@ -1,9 +1,10 @@
-import { writeFile } from "node:fs/promises";
+import { appendFile, writeFile } from "node:fs/promises";
 import { isAbsolute, join } from "node:path";
 import type { Result } from "../problem.js";
 import type { DeliveryReport } from "../report/model.js";
 import { TOOL_VERSION } from "../report/build.js";
 import { WRITERS, type ReportFormat } from "../report/formats.js";
+import { githubSummary } from "../report/github-summary.js";
 import type { Io } from "./io.js";
 
 export interface ReportTarget {
@@ -28,8 +29,18 @@ export function parseReportTargets(values: readonly string[]): { ok: true; value
 
 /** Write every requested report; text goes to stdout unless another report already does. */
 export async function writeReports(reports: readonly DeliveryReport[], targets: readonly ReportTarget[], io: Io, root: string, unclaimed: readonly string[] = []): Promise<Result<void>> {
-  const all = targets.some((t) => t.path === "-") ? targets : [{ format: "text" as const, path: "-" }, ...targets];
+  // In a GitHub Actions job with no report named, annotate the files as well as printing text.
+  const named = targets.length > 0 || io.env.GITHUB_ACTIONS !== "true" ? targets : [{ format: "github" as const, path: "-" }];
+  const all = named.some((t) => t.path === "-" && t.format !== "github") ? named : [{ format: "text" as const, path: "-" }, ...named];
   const ctx = { root, toolVersion: TOOL_VERSION, unclaimed };
+  const summaryFile = io.env.GITHUB_STEP_SUMMARY;
+  if (all.some((t) => t.format === "github") && summaryFile) {
+    try {
+      await appendFile(summaryFile, githubSummary(reports, ctx));
+    } catch (e) {
+      return { ok: false, problems: [{ file: summaryFile, message: `cannot append the step summary: ${(e as NodeJS.ErrnoException).code ?? (e as Error).message}` }] };
+    }
+  }
   for (const t of all) {
     const body = WRITERS[t.format](reports, ctx);
     if (t.path === "-") {

@@ -101,7 +101,9 @@ export function createFileEnd(plan: Plan, out: Collector) {
         for (const hit of found.outliers) {
           if (!out.fail(o.check, hit.row)) continue;
           const shown = shownValue(formatValue(hit.value), sensitive);
-          const why = hit.score === undefined ? `lies outside ${expected}` : `has modified z-score ${hit.score.toFixed(2)}, above ${o.threshold}`;
+          const why = found.fence
+            ? `lies outside the Tukey fences ${formatValue(found.fence.low)} to ${formatValue(found.fence.high)} (k = ${o.k})`
+            : `has modified z-score ${(hit.score ?? 0).toFixed(2)}, beyond ±${o.threshold} (median ${formatValue(found.median ?? 0)})`;
           out.keep(o.check, { rule: rule(o.check), level: level(o.check), row: hit.row, line: lines?.at(hit.row - 1) ?? 0, column: name, value: shown, expected, message: `${name} ${shown} ${why}` });
         }
       });
