@@ -1,0 +1,62 @@
+import { mkdir, mkdtemp, rm, writeFile } from "node:fs/promises";
+import { tmpdir } from "node:os";
+import { dirname, join } from "node:path";
+import { run } from "../../src/cli/run.js";
+import type { DeliveryReport } from "../../src/report/model.js";
+
+/** What one in-process run of the command line produced. */
+export interface CliRun {
+  readonly code: number;
+  readonly stdout: string;
+  readonly stderr: string;
+}
+
+/** Files to lay out in the temporary project folder: relative path to content. */
+export type FileSet = Readonly<Record<string, string | Uint8Array>>;
+
+/**
+ * Run `tablegate <argv>` in-process inside a fresh temporary folder holding `files` (and an empty
+ * `.git`, so that folder is the project root), capture stdout/stderr and the exit status, then remove it.
+ */
+export async function runCli(argv: readonly string[], files: FileSet = {}): Promise<CliRun> {
+  const dir = await mkdtemp(join(tmpdir(), "tablegate-test-"));
+  try {
+    await mkdir(join(dir, ".git"));
+    for (const [name, content] of Object.entries(files)) {
+      const path = join(dir, name);
+      await mkdir(dirname(path), { recursive: true });
+      await writeFile(path, content);
+    }
+    let stdout = "";
+    let stderr = "";
+    const code = await run(argv, {
+      stdout: (s) => { stdout += s; },
+      stderr: (s) => { stderr += s; },
+      env: { NO_COLOR: "1" },
+      cwd: dir,
+      stderrIsTty: false,
+    });
+    return { code, stdout, stderr };
+  } finally {
+    await rm(dir, { recursive: true, force: true });
+  }
+}
+
+/** `check data.csv --contract contract.yaml --report json=-` over the given texts; the report parsed. */
+export async function checkJson(
+  contract: string,
+  data: string | Uint8Array,
+  extraArgs: readonly string[] = [],
+): Promise<CliRun & { readonly report: DeliveryReport }> {
+  const r = await runCli(["check", "data.csv", "--contract", "contract.yaml", "--report", "json=-", ...extraArgs], {
+    "contract.yaml": contract,
+    "data.csv": data,
+  });
+  let report: DeliveryReport;
+  try {
+    report = JSON.parse(r.stdout) as DeliveryReport;
+  } catch {
+    throw new Error(`no JSON report on stdout (exit ${r.code}); stderr: ${r.stderr}`);
+  }
+  return { ...r, report };
+}
