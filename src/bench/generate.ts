@@ -148,6 +148,7 @@ export function* deliveryChunks(options: GenerateOptions, planted: Record<Proble
   let invoiceDay = FIRST_INVOICE_DAY;
   let shipText = "";
   let previous = "";
+  let previousProblem: ProblemKind | undefined;
   let chunk: string[] = [HEADER];
   for (let row = 0; row < options.rows; row++) {
     if (line === linesInInvoice) {
@@ -162,9 +163,12 @@ export function* deliveryChunks(options: GenerateOptions, planted: Record<Proble
       head = `INV-${invoice},`;
     }
     line++;
-    const problem: ProblemKind | undefined = rand() < share ? pick(rand, PROBLEM_KINDS) : undefined;
+    let problem: ProblemKind | undefined = rand() < share ? pick(rand, PROBLEM_KINDS) : undefined;
+    // Only a clean row is repeated, and only a US row can contradict its state's region, so that
+    // each planted problem stands for exactly one failure of its check.
+    if ((problem === "duplicates" && (previous === "" || previousProblem !== undefined)) || (problem === "rule:region-matches-state" && !dealer.us)) problem = undefined;
     let text: string;
-    if (problem === "duplicates" && previous !== "") {
+    if (problem === "duplicates") {
       text = previous; // the same record twice, so its invoice gets one line more than its numbering says
       line--;
     } else {
@@ -181,7 +185,7 @@ export function* deliveryChunks(options: GenerateOptions, planted: Record<Proble
         : shipText;
       const region =
         problem === "sales_region.codes" ? (dealer.us ? "NORTH EAST" : "PACIFIC")
-        : problem === "rule:region-matches-state" && dealer.us ? (wrongRegion[dealer.region] ?? dealer.region)
+        : problem === "rule:region-matches-state" ? (wrongRegion[dealer.region] ?? dealer.region)
         : dealer.region;
       const sku = problem === "sku.spaces" ? ` ${item.sku}` : item.sku;
       const category = problem === "category.required" ? "" : item.category;
@@ -190,9 +194,9 @@ export function* deliveryChunks(options: GenerateOptions, planted: Record<Proble
         `${head}${line},${isoDay(invoiceDay)},${ship},${dealer.id},${dealer.place},${region},${sku},${category},` +
         `${qtyText},${money(cents)},${discount === 0 ? "" : `0.${String(discount).padStart(2, "0")}`},${money(net)},${dealer.contact}`;
     }
-    // A region mismatch cannot be planted on a Canadian dealer; count only what was planted.
-    if (problem !== undefined && !(problem === "rule:region-matches-state" && !dealer.us) && !(problem === "duplicates" && previous === "")) planted[problem]++;
+    if (problem !== undefined) planted[problem]++;
     previous = text;
+    previousProblem = problem;
     chunk.push(text);
     if (chunk.length >= CHUNK_ROWS) {
       yield chunk.join("\n") + "\n";

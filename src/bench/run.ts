@@ -1,6 +1,5 @@
-import { mkdtemp, readFile, rm, writeFile } from "node:fs/promises";
-import { tmpdir } from "node:os";
-import { dirname, join } from "node:path";
+import { mkdir, mkdtemp, readFile, rm, writeFile } from "node:fs/promises";
+import { join, resolve } from "node:path";
 import { fileURLToPath } from "node:url";
 import { parseArgs } from "node:util";
 import { parseDocument } from "yaml";
@@ -72,16 +71,20 @@ async function failedByRule(path: string): Promise<Map<string, number> | undefin
 
 async function main(): Promise<number> {
   const { values } = parseArgs({
-    options: { rows: { type: "string" }, runs: { type: "string" }, keep: { type: "boolean", default: false } },
+    options: { rows: { type: "string" }, runs: { type: "string" }, dir: { type: "string" }, keep: { type: "boolean", default: false } },
     strict: true,
   });
   const rows = positiveInt("rows", values.rows, 1_000_000);
   const runs = positiveInt("runs", values.runs, 3);
 
+  // The generated file lives in the repository's git-ignored .bench/ by default: tablegate resolves
+  // delivery paths against the repository root.
+  const parent = values.dir === undefined ? join(ROOT, ".bench") : resolve(values.dir);
+  await mkdir(parent, { recursive: true });
+  const scratch = await mkdtemp(join(parent, "run-"));
   const t0 = process.hrtime.bigint();
-  const gen = await generateDelivery({ rows });
+  const gen = await generateDelivery({ rows, path: join(scratch, `dealer-sales-${rows}.csv`) });
   const genSeconds = Number(process.hrtime.bigint() - t0) / 1e9;
-  const scratch = dirname(gen.path);
   process.stdout.write(`generated ${fmt(rows)} rows, ${fmt(gen.bytes / 1e6, 1)} MB in ${fmt(genSeconds, 1)} s: ${gen.path}\n`);
 
   try {
