@@ -135,7 +135,7 @@ async function main(): Promise<number> {
       lines.push(`  ${kind.padEnd(30)} planted ${String(gen.planted[kind]).padStart(6)}   reported ${found === undefined ? "n/a" : String(found.get(kind) ?? 0).padStart(6)}`);
     }
     if (found !== undefined) {
-      const others = [...found].filter(([rule]) => !(PROBLEM_KINDS as readonly string[]).includes(rule));
+      const others = [...found].filter(([rule, n]) => n > 0 && !(PROBLEM_KINDS as readonly string[]).includes(rule));
       for (const [rule, n] of others) lines.push(`  ${rule.padEnd(30)} ${"".padStart(14)}   reported ${String(n).padStart(6)}`);
     }
     process.stdout.write(`${lines.join("\n")}\n`);
