@@ -74,7 +74,13 @@ export function githubSummary(reports: readonly DeliveryReport[], _ctx: WriterCo
   };
   let cut = false;
   const heading = [
-    `## tablegate: ${failed === 0 ? "all deliveries meet their contracts" : `${plural(failed, "delivery", "deliveries")} of ${reports.length} failed`}`,
+    `## tablegate: ${
+      reports.length === 0
+        ? "no deliveries were checked"
+        : failed === 0
+          ? "all deliveries meet their contracts"
+          : `${plural(failed, "delivery", "deliveries")} of ${reports.length} failed`
+    }`,
     "",
   ];
   for (const line of heading) add(line);

@@ -9,6 +9,7 @@ import { afterAll, describe, expect, test } from "vitest";
 import type { DeliveryReport } from "../../src/report/model.js";
 import { SARIF_RESULT_CAP, sarif } from "../../src/report/sarif.js";
 import { bulk, ctx, returns, sales } from "./fixture.js";
+import { expectGolden } from "./golden.js";
 
 interface SarifResult {
   ruleId: string;
@@ -167,5 +168,6 @@ describe("sarif content", () => {
     const a = sarif([sales, returns], ctx);
     expect(sarif([sales, returns], ctx)).toBe(a);
     expect(sarif([{ ...sales, elapsed_ms: 999_999 }, returns], ctx)).toBe(a);
+    expectGolden("report.sarif", a);
   });
 });
