@@ -1,5 +1,5 @@
 import { createHash } from "node:crypto";
-import { createReadStream } from "node:fs";
+import { createReadStream, type ReadStream } from "node:fs";
 import { open as openFile } from "node:fs/promises";
 import { pipeline } from "node:stream/promises";
 import { createGunzip } from "node:zlib";
@@ -51,14 +51,14 @@ export async function openDelivery(path: string, options: InputOptions): Promise
     parse = (chunks) => readCsv(made.parser, chunks, decoder, stop);
   }
 
-  const raw = handle.createReadStream({ highWaterMark: CHUNK });
+  const file = handle;
   const hash = createHash("sha256");
   let bytes = 0;
   let whole = false;
   let summary: DeliverySummary | undefined;
   const gzip = path.endsWith(".gz");
 
-  async function* hashed(): AsyncGenerator<Buffer> {
+  async function* hashed(raw: ReadStream): AsyncGenerator<Buffer> {
     for await (const chunk of raw) {
       hash.update(chunk as Buffer);
       bytes += (chunk as Buffer).length;
@@ -66,7 +66,7 @@ export async function openDelivery(path: string, options: InputOptions): Promise
     }
     whole = true;
   }
-  async function* gunzipped(): AsyncGenerator<Buffer> {
+  async function* gunzipped(raw: ReadStream): AsyncGenerator<Buffer> {
     const gunzip = createGunzip({ chunkSize: CHUNK });
     raw.on("data", (chunk) => {
       hash.update(chunk as Buffer);
@@ -84,8 +84,9 @@ export async function openDelivery(path: string, options: InputOptions): Promise
   }
 
   async function* records(): AsyncGenerator<readonly RawRecord[]> {
+    const raw = file.createReadStream({ highWaterMark: CHUNK });
     try {
-      yield* parse!(gzip ? gunzipped() : hashed());
+      yield* parse!(gzip ? gunzipped(raw) : hashed(raw));
     } finally {
       raw.destroy();
       summary = { encoding: decoder.encoding(), ...noteOf(decoder.note()), ...(whole ? { bytes, sha256: hash.digest("hex") } : await hashFile(path)) };
