@@ -5,13 +5,14 @@
  */
 import type { Value } from "../values.js";
 import type { Node, NodeOf } from "./ast.js";
-import { valueToText } from "./coerce.js";
+import { textToBoolean, textToNumber, valueToText } from "./coerce.js";
 import { compareValues, textLiteralComparer } from "./compare.js";
 import { parseIsoDate, parseIsoTime, parseIsoTimestamp } from "./dates.js";
 import { AGGREGATES, FUNCTIONS, SPECIAL_FUNCTIONS } from "./functions.js";
 import { add, divide, multiply, negate, remainder, subtract } from "./arithmetic.js";
 import { compileLike } from "./like.js";
 import { KEYWORDS } from "./lexer.js";
+import { and, between, comparison, membership, not, or, searchedCase, simpleCase, type Against } from "./predicates.js";
 import { parse } from "./parser.js";
 import { compileSafeRegex } from "../safe-regex.js";
 import { nearest } from "./suggest.js";
@@ -28,7 +29,6 @@ interface C {
   readonly value: Value;
 }
 
-type Against = (a: Value, row: readonly Value[]) => number | null;
 
 const TESTS: Readonly<Record<string, (c: number) => boolean>> = {
   "=": (c) => c === 0,
@@ -120,11 +120,11 @@ function makeCompiler(source: string, env: ExprEnv) {
     if (!lit.constant || typeof lit.value !== "string") return true;
     const v = lit.value;
     const bad =
-      (other === "number" && !/^\s*[+-]?(?:\d+\.?\d*|\.\d+)(?:[eE][+-]?\d+)?\s*$/.test(v)) ||
+      (other === "number" && textToNumber(v) === null) ||
       (other === "date" && parseIsoDate(v) === null) ||
       (other === "timestamp" && parseIsoTimestamp(v) === null) ||
       (other === "time" && parseIsoTime(v) === null) ||
-      (other === "boolean" && !/^\s*(true|false)\s*$/i.test(v));
+      (other === "boolean" && textToBoolean(v) === null);
     if (!bad) return true;
     const form = { number: "a number", date: "a date 'YYYY-MM-DD'", timestamp: "a timestamp 'YYYY-MM-DDTHH:MM:SS'", time: "a time 'HH:MM:SS'", boolean: "true or false" }[other as "date"];
     fail(lit.node.start, `'${v}' is compared with ${typeName(other)}, so it must be ${form}`);
@@ -334,10 +334,7 @@ function makeCompiler(source: string, env: ExprEnv) {
     const f = operand.fn;
     if (node.op === "not") {
       if (!needType(operand, ["boolean"], "NOT needs a condition")) return null;
-      return folded(node, "boolean", (r) => {
-        const v = f(r);
-        return v === true ? false : v === false ? true : null;
-      }, [operand]);
+      return folded(node, "boolean", not(f), [operand]);
     }
     if (!needType(operand, ["number"], `unary ${node.op} needs a number`)) return null;
     return node.op === "+" ? operand : folded(node, "number", (r) => negate(f(r)), [operand]);
@@ -410,14 +407,7 @@ function makeCompiler(source: string, env: ExprEnv) {
         return c === null ? null : test(-c);
       });
     }
-    const l = left.fn;
-    const vs = against(right);
-    return folded(node, "boolean", (r) => {
-      const a = l(r);
-      if (a === null) return null;
-      const c = vs(a, r);
-      return c === null ? null : test(c);
-    }, [left, right]);
+    return folded(node, "boolean", comparison(left.fn, against(right), test), [left, right]);
   }
 
   function compileLogical(node: NodeOf<"logical">): C | null {
@@ -426,25 +416,7 @@ function makeCompiler(source: string, env: ExprEnv) {
     if (left === null || right === null) return null;
     const what = `${node.op.toUpperCase()} joins conditions`;
     if (!needType(left, ["boolean"], what) || !needType(right, ["boolean"], what)) return null;
-    const l = left.fn;
-    const rt = right.fn;
-    // ISO/IEC 9075 truth tables: FALSE dominates AND, TRUE dominates OR, otherwise unknown wins.
-    const fn: Eval =
-      node.op === "and"
-        ? (r) => {
-            const a = l(r);
-            if (a === false) return false;
-            const b = rt(r);
-            if (b === false) return false;
-            return a === true && b === true ? true : null;
-          }
-        : (r) => {
-            const a = l(r);
-            if (a === true) return true;
-            const b = rt(r);
-            if (b === true) return true;
-            return a === false && b === false ? false : null;
-          };
+    const fn = node.op === "and" ? and(left.fn, right.fn) : or(left.fn, right.fn);
     return folded(node, "boolean", fn, [left, right]);
   }
 
@@ -470,7 +442,7 @@ function makeCompiler(source: string, env: ExprEnv) {
   function compileDistinct(node: NodeOf<"distinct">): C | null {
     const left = compile(node.left);
     const right = left === null ? null : compile(node.right);
-    if (left === null || right === null || !checkComparable(left, right, node.left.end)) return null;
+    if (left === null || right === null || !checkComparable(left, right, node.right.start)) return null;
     const l = left.fn;
     const vs = against(right);
     const rt = right.fn;
@@ -488,20 +460,7 @@ function makeCompiler(source: string, env: ExprEnv) {
     if (parts === null) return null;
     const [x, low, high] = parts as [C, C, C];
     if (!checkComparable(x, low, node.low.start) || !checkComparable(x, high, node.high.start)) return null;
-    const f = x.fn;
-    const lo = against(low);
-    const hi = against(high);
-    const neg = node.negated;
-    // x BETWEEN a AND b is x >= a AND x <= b, in three-valued logic.
-    return folded(node, "boolean", (r) => {
-      const a = f(r);
-      if (a === null) return null;
-      const c1 = lo(a, r);
-      const c2 = hi(a, r);
-      if ((c1 !== null && c1 < 0) || (c2 !== null && c2 > 0)) return neg;
-      if (c1 === null || c2 === null) return null;
-      return !neg;
-    }, parts);
+    return folded(node, "boolean", between(x.fn, against(low), against(high), node.negated), parts);
   }
 
   function compileIn(node: NodeOf<"in">): C | null {
@@ -509,27 +468,12 @@ function makeCompiler(source: string, env: ExprEnv) {
     const items = x === null ? null : compileArgs(node.items);
     if (x === null || items === null) return null;
     for (const item of items) if (!checkComparable(x, item, item.node.start)) return null;
-    const f = x.fn;
-    const comparers = items.map(against);
     const hasNull = items.some((i) => i.constant && i.value === null);
-    const neg = node.negated;
     // A list of literals of one kind answers a value of that kind by a set look-up.
     const literals = items.filter((i) => i.constant && i.value !== null);
     const kind = literals.length === items.length - (hasNull ? 1 : 0) ? sameKind(literals.map((i) => i.value)) : null;
     const set = kind === null ? null : new Set(literals.map((i) => i.value));
-    const miss = hasNull ? null : neg;
-    return folded(node, "boolean", (r) => {
-      const a = f(r);
-      if (a === null) return null;
-      if (set !== null && typeof a === kind) return set.has(a) ? !neg : miss;
-      let unknown = false;
-      for (let i = 0; i < comparers.length; i++) {
-        const c = (comparers[i] as Against)(a, r);
-        if (c === 0) return !neg;
-        if (c === null) unknown = true;
-      }
-      return unknown ? null : neg;
-    }, [x, ...items]);
+    return folded(node, "boolean", membership(x.fn, items.map(against), set, kind, hasNull, node.negated), [x, ...items]);
   }
 
   function compileLikeNode(node: NodeOf<"like">): C | null {
@@ -596,21 +540,8 @@ function makeCompiler(source: string, env: ExprEnv) {
     const thenFns = thens.map((t) => t.fn);
     const elseFn = otherwise?.fn ?? null;
     const parts = [...(subject === null ? [] : [subject]), ...whens, ...results];
-    if (subject === null) {
-      const whenFns = whens.map((w) => w.fn);
-      return folded(node, type, (r) => {
-        for (let i = 0; i < whenFns.length; i++) if ((whenFns[i] as Eval)(r) === true) return (thenFns[i] as Eval)(r);
-        return elseFn === null ? null : elseFn(r);
-      }, parts);
-    }
-    const s = subject.fn;
-    const comparers = whens.map(against);
-    // Simple CASE: x = v for each WHEN; a NULL subject equals nothing and falls to ELSE.
-    return folded(node, type, (r) => {
-      const a = s(r);
-      if (a !== null) for (let i = 0; i < comparers.length; i++) if ((comparers[i] as Against)(a, r) === 0) return (thenFns[i] as Eval)(r);
-      return elseFn === null ? null : elseFn(r);
-    }, parts);
+    const fn = subject === null ? searchedCase(whens.map((w) => w.fn), thenFns, elseFn) : simpleCase(subject.fn, whens.map(against), thenFns, elseFn);
+    return folded(node, type, fn, parts);
   }
 
   return {

@@ -107,3 +107,10 @@ describe("limits against hostile contracts", () => {
     expect(errorOffset(`qty > 1${" OR qty > 1".repeat(300)}`, env)).toBe("ok");
   });
 });
+
+describe("IS DISTINCT FROM types", () => {
+  test("incomparable sides fail at the right-hand side", () => {
+    expect(errorOffset("qty IS DISTINCT FROM ship_date", env)).toBe(21);
+    expect(errorOffset("qty IS NOT DISTINCT FROM 3", env)).toBe("ok");
+  });
+});
