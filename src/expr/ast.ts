@@ -8,6 +8,7 @@ interface Span {
   readonly end: number;
 }
 
+/** One node of the tree, discriminated by `type`. */
 export type Node =
   | (Span & { readonly type: "number"; readonly value: number })
   | (Span & { readonly type: "text"; readonly value: string })

@@ -136,4 +136,5 @@ export function formatIsoTimestamp(ms: number, zoned: boolean): string {
   return `${formatIsoDate(days)}T${formatIsoTime(rest)}${zoned ? "Z" : ""}`;
 }
 
+/** Milliseconds in a day (no leap seconds, as ISO 8601 timestamps here). */
 export const MS_PER_DAY = DAY_MS;

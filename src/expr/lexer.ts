@@ -1,5 +1,6 @@
 /** Splits an expression into tokens with their offsets; never throws. */
 
+/** What kind of lexeme a token is. */
 export type TokenKind = "number" | "text" | "ident" | "quoted" | "keyword" | "op" | "end";
 
 /** One token; `value` is the decoded text (string contents, identifier, upper-cased keyword, operator). */
