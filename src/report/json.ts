@@ -6,7 +6,7 @@ function checkJson(c: CheckTally): Omit<CheckTally, "examples"> {
   return rest;
 }
 
-/** One delivery in the SPEC §4 shape, keys in a fixed order so equal inputs give equal bytes. */
+/** One delivery in the SPEC §4 shape, keys in a fixed order and no timing, so equal inputs give equal bytes. */
 export function deliveryJson(r: DeliveryReport): Record<string, unknown> {
   return {
     report: r.report,
@@ -20,7 +20,6 @@ export function deliveryJson(r: DeliveryReport): Record<string, unknown> {
     findings: r.findings,
     truncated: r.truncated,
     ...(r.profile === undefined ? {} : { profile: r.profile }),
-    ...(r.elapsed_ms === undefined ? {} : { elapsed_ms: r.elapsed_ms }),
   };
 }
 

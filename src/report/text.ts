@@ -15,7 +15,7 @@ function checkBlock(r: DeliveryReport, c: CheckTally): string[] {
   const allowance = c.allow === undefined ? "" : ` · ${(100 * (c.share ?? 0)).toFixed(2)}% of rows, ${c.within_allowance ? "within" : "over"} the ${(100 * c.allow).toFixed(2)}% allowed`;
   const lines = [`${c.level.toUpperCase().padEnd(7)} ${c.rule} · ${plural(c.failed, "finding")}${allowance}`, `        ${c.description} (${src})`];
   const shown = c.examples ?? r.findings.filter((f) => f.rule === c.rule).slice(0, 5);
-  for (const f of shown) lines.push(`        ${where(f).padEnd(22)} ${f.message}`);
+  for (const f of shown) lines.push(`        ${where(f).padEnd(22)} ${f.message}${f.value !== undefined && !f.message.includes(f.value) ? ` (value ${f.value})` : ""}`);
   const more = c.failed - shown.length;
   if (more > 0) lines.push(`        ... and ${plural(more, "more finding")} of this rule`);
   return lines;

@@ -1,12 +1,13 @@
 import { describe, expect, test } from "vitest";
-import { githubSummary, writers } from "../../src/report/writers.js";
+import { WRITERS as writers } from "../../src/report/formats.js";
+import { githubSummary } from "../../src/report/github-summary.js";
 import { ctx, returns, sales } from "./fixture.js";
 
 describe("writers by format name", () => {
   const names = Object.keys(writers).sort();
 
-  test("one writer per --report format handled here", () => {
-    expect(names).toEqual(["codequality", "github", "html", "junit", "sarif"]);
+  test("one writer per --report format", () => {
+    expect(names).toEqual(["codequality", "github", "html", "json", "junit", "sarif", "text"]);
   });
 
   test.each(names)("%s: same input, same bytes; elapsed time never printed", (name) => {
