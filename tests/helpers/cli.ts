@@ -1,4 +1,4 @@
-import { mkdir, mkdtemp, rm, writeFile } from "node:fs/promises";
+import { mkdir, mkdtemp, readFile, rm, writeFile } from "node:fs/promises";
 import { tmpdir } from "node:os";
 import { dirname, join } from "node:path";
 import { run } from "../../src/cli/run.js";
@@ -9,6 +9,16 @@ export interface CliRun {
   readonly code: number;
   readonly stdout: string;
   readonly stderr: string;
+  /** Contents of the files named in `readBack` after the run; absent files are left out. */
+  readonly files: Readonly<Record<string, string>>;
+}
+
+/** Extra settings for one run. */
+export interface RunOptions {
+  /** Files to read back after the run (e.g. reports written with --report fmt=path). */
+  readonly readBack?: readonly string[];
+  readonly env?: Readonly<Record<string, string | undefined>>;
+  readonly stderrIsTty?: boolean;
 }
 
 /** Files to lay out in the temporary project folder: relative path to content. */
@@ -18,7 +28,7 @@ export type FileSet = Readonly<Record<string, string | Uint8Array>>;
  * Run `tablegate <argv>` in-process inside a fresh temporary folder holding `files` (and an empty
  * `.git`, so that folder is the project root), capture stdout/stderr and the exit status, then remove it.
  */
-export async function runCli(argv: readonly string[], files: FileSet = {}): Promise<CliRun> {
+export async function runCli(argv: readonly string[], files: FileSet = {}, options: RunOptions = {}): Promise<CliRun> {
   const dir = await mkdtemp(join(tmpdir(), "tablegate-test-"));
   try {
     await mkdir(join(dir, ".git"));
@@ -32,11 +42,19 @@ export async function runCli(argv: readonly string[], files: FileSet = {}): Prom
     const code = await run(argv, {
       stdout: (s) => { stdout += s; },
       stderr: (s) => { stderr += s; },
-      env: { NO_COLOR: "1" },
+      env: options.env ?? { NO_COLOR: "1" },
       cwd: dir,
-      stderrIsTty: false,
+      stderrIsTty: options.stderrIsTty ?? false,
     });
-    return { code, stdout, stderr };
+    const back: Record<string, string> = {};
+    for (const name of options.readBack ?? []) {
+      try {
+        back[name] = await readFile(join(dir, name), "utf8");
+      } catch {
+        // left out: the test asserts on presence
+      }
+    }
+    return { code, stdout, stderr, files: back };
   } finally {
     await rm(dir, { recursive: true, force: true });
   }
