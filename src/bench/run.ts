@@ -97,9 +97,12 @@ async function main(): Promise<number> {
       // csv-parse without `columns` returns the header as a record too.
       if (!b.stdoutHead.startsWith(`{"records":${rows + 1}}`)) return fail(`bare csv-parse counted ${b.stdoutHead.trim()}, expected ${rows + 1} records\n`);
       bare.runs.push(b);
+      await rm(report, { force: true });
       const t = await measure({ script: CLI, args: checkArgs(gen.path, CONTRACT, report), cwd: ROOT, probe: PROBE, scratch });
-      // 1 is expected: the generator plants problems on purpose.
+      // 1 is expected: the generator plants problems on purpose. Node also exits 1 on a crash, so
+      // the run counts only when it wrote its report.
       if (failedToRun(t, [0, 1])) return fail(explain("tablegate check", t));
+      if ((await failedByRule(report)) === undefined) return fail(`${explain("tablegate check", t)}and wrote no readable JSON report\n`);
       full.runs.push(t);
       process.stdout.write(`run ${i + 1}/${runs}: bare ${fmt(b.wallMs / 1000, 2)} s, tablegate ${fmt(t.wallMs / 1000, 2)} s (exit ${String(t.code)})\n`);
     }
@@ -109,8 +112,10 @@ async function main(): Promise<number> {
     const doc = parseDocument(await readFile(join(ROOT, CONTRACT), "utf8"));
     for (const key of ["rules", "groups", "outliers"]) doc.delete(key);
     await writeFile(stripped, String(doc));
-    const cols = await measure({ script: CLI, args: checkArgs(gen.path, stripped, join(scratch, "r-columns.json")), cwd: ROOT, probe: PROBE, scratch });
-    const columnsOnly: Series = { label: "tablegate, no rules/groups/outliers", runs: failedToRun(cols, [0, 1]) ? [] : [cols] };
+    const colsReport = join(scratch, "r-columns.json");
+    const cols = await measure({ script: CLI, args: checkArgs(gen.path, stripped, colsReport), cwd: ROOT, probe: PROBE, scratch });
+    const colsRan = !failedToRun(cols, [0, 1]) && (await failedByRule(colsReport)) !== undefined;
+    const columnsOnly: Series = { label: "tablegate, no rules/groups/outliers", runs: colsRan ? [cols] : [] };
 
     const header = `${"".padEnd(34)}${"median".padStart(10)}${"rows/s".padStart(12)}${"MB/s".padStart(9)}${"peak RSS".padStart(11)}`;
     const lines = [
