@@ -19,10 +19,12 @@ const goldenCases = readdirSync(goldenDir, { withFileTypes: true })
   .map((d) => d.name)
   .sort();
 
+/** The golden case's files, its data file always named data.csv (the contract names the format). */
 function filesOf(name: string): Record<string, Uint8Array> {
+  const data = readdirSync(join(goldenDir, name)).find((f) => f.startsWith("data.")) ?? "data.csv";
   return {
     "contract.yaml": readFileSync(join(goldenDir, name, "contract.yaml")),
-    "data.csv": readFileSync(join(goldenDir, name, "data.csv")),
+    "data.csv": readFileSync(join(goldenDir, name, data)),
   };
 }
 

@@ -1,7 +1,7 @@
 /**
- * The golden suite: each folder holds contract.yaml, data.csv and expected.json, the last written by
+ * The golden suite: each folder holds contract.yaml, data.<ext> and expected.json, the last written by
  * hand from SPEC §1–§4 (an oracle independent of the engine). A case is run as a new user would:
- * `check data.csv --contract contract.yaml --report json=- [args]`. Compared: exit status, verdict,
+ * `check data.<ext> --contract contract.yaml --report json=- [args]`. Compared: exit status, verdict,
  * input.rows, counts, truncated, every check that failed (rule, level, failed) and every finding
  * (the fields each expected finding names; message wording, hashes, sizes and paths are never compared).
  * A folder with `"pending": "<why>"` in expected.json records a known disagreement with SPEC and is
@@ -57,7 +57,8 @@ describe("golden cases", () => {
     const want = JSON.parse(readFileSync(join(dir, "expected.json"), "utf8")) as Expected;
     const test = want.pending ? it.fails : it;
     test(`${name}: ${want.description}`, async () => {
-      const r = await checkJson(readFileSync(join(dir, "contract.yaml"), "utf8"), readFileSync(join(dir, "data.csv")), want.args ?? []);
+      const dataName = readdirSync(dir).find((f) => f.startsWith("data.")) ?? "data.csv";
+      const r = await checkJson(readFileSync(join(dir, "contract.yaml"), "utf8"), readFileSync(join(dir, dataName)), want.args ?? [], dataName);
       const rep = r.report;
       const failedChecks = rep.checks
         .filter((c) => c.failed > 0)

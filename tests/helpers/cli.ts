@@ -60,15 +60,16 @@ export async function runCli(argv: readonly string[], files: FileSet = {}, optio
   }
 }
 
-/** `check data.csv --contract contract.yaml --report json=-` over the given texts; the report parsed. */
+/** `check <dataName> --contract contract.yaml --report json=-` over the given texts; the report parsed. */
 export async function checkJson(
   contract: string,
   data: string | Uint8Array,
   extraArgs: readonly string[] = [],
+  dataName = "data.csv",
 ): Promise<CliRun & { readonly report: DeliveryReport }> {
-  const r = await runCli(["check", "data.csv", "--contract", "contract.yaml", "--report", "json=-", ...extraArgs], {
+  const r = await runCli(["check", dataName, "--contract", "contract.yaml", "--report", "json=-", ...extraArgs], {
     "contract.yaml": contract,
-    "data.csv": data,
+    [dataName]: data,
   });
   let report: DeliveryReport;
   try {
