@@ -1,3 +1,4 @@
+import { isAbsolute, join } from "node:path";
 import { parseArgs } from "node:util";
 import { formatProblem, type Problem } from "../problem.js";
 import {
@@ -17,7 +18,10 @@ import {
   type RegistryRoot,
   type TableDiff,
 } from "../registry/index.js";
-import { findRoot } from "./root.js";
+import { loadProjectConfig, type ProjectConfig } from "../project/config.js";
+import { breaks, tableImpact, type ImpactReport, type RowChange } from "../registry/impact.js";
+import type { Io } from "./io.js";
+import { findRoot, reportPath } from "./root.js";
 
 /** What `ref` needs of the outside world (a subset of the CLI's Io). */
 export interface RefIo {
@@ -29,9 +33,16 @@ export interface RefIo {
 /** Further registries (from tablegate.yaml), passed in by the caller that read the project file. */
 export interface RefOptions {
   readonly registries?: readonly RegistryRoot[];
+  /** the project file, when the caller has read it (`ref impact` reads it itself otherwise) */
+  readonly config?: ProjectConfig;
 }
 
-export const REF_USAGE = "tablegate ref list [--json] | show <table> [--page N] [--page-size N] | lint | lock | diff <table> [--from <git-rev>] [--json]";
+export const REF_USAGE = `tablegate ref list [--json]
+  tablegate ref show <table> [--page N] [--page-size N]
+  tablegate ref lint [--json]
+  tablegate ref lock
+  tablegate ref diff <table> [--from <git-rev>] [--json]
+  tablegate ref impact <table> [--data <glob>]... [--contract <c>] [--from <git-rev>] [--max-findings N] [--json]`;
 
 const PASS = 0;
 const FAIL = 1;
@@ -42,6 +53,9 @@ type Sub = (positionals: readonly string[], values: Values, ctx: Ctx) => Promise
 interface Values {
   readonly json?: boolean;
   readonly from?: string;
+  readonly data?: readonly string[];
+  readonly contract?: string;
+  readonly "max-findings"?: string;
   readonly page?: string;
   readonly "page-size"?: string;
 }
@@ -50,6 +64,7 @@ interface Ctx {
   readonly io: RefIo;
   readonly root: string;
   readonly roots: readonly RegistryRoot[];
+  readonly config?: ProjectConfig;
 }
 
 function problems(io: RefIo, list: readonly Problem[], status = UNUSABLE): number {
@@ -190,7 +205,95 @@ function columns(rows: readonly (readonly string[])[]): string {
   return rows.map((r) => r.map((c, i) => (i === r.length - 1 ? c : c.padEnd(widths[i] ?? 0))).join("  ").trimEnd()).join("\n") + "\n";
 }
 
-const SUBS: Readonly<Record<string, Sub>> = { list, show, lint, lock, diff };
+const impact: Sub = async (positionals, values, ctx) => {
+  const [name] = positionals;
+  if (name === undefined || positionals.length > 1) return bad(ctx.io, "ref impact needs one table name");
+  const maxFindings = wholeNumber(values["max-findings"] ?? "100000", 1);
+  if (maxFindings === undefined) return bad(ctx.io, "--max-findings takes a whole number from 1");
+  if (values.contract !== undefined && (values.data ?? []).length === 0) return bad(ctx.io, "--contract names the contract for the --data files; give --data <glob> too");
+  const reg = await registryOr(ctx);
+  if (typeof reg === "number") return reg;
+  let config = ctx.config;
+  if (!config) {
+    const loaded = await loadProjectConfig(ctx.root);
+    if (!loaded.ok) return problems(ctx.io, loaded.problems);
+    config = loaded.value;
+  }
+  const contract = values.contract === undefined ? undefined : reportPath(ctx.root, isAbsolute(values.contract) ? values.contract : join(ctx.io.cwd, values.contract));
+  const r = await tableImpact(ctx.root, name, {
+    registry: reg,
+    config,
+    data: values.data ?? [],
+    ...(contract === undefined ? {} : { contract }),
+    ...(values.from === undefined ? {} : { from: values.from }),
+    maxFindings,
+  });
+  if (!r.ok) return problems(ctx.io, r.problems);
+  ctx.io.stdout(values.json ? JSON.stringify(impactJson(r.value), null, 2) + "\n" : renderImpact(r.value));
+  return breaks(r.value) ? FAIL : PASS;
+};
+
+/** The impact report as JSON: snake_case like the delivery report. */
+function impactJson(r: ImpactReport): unknown {
+  return {
+    table: r.table,
+    working: r.working,
+    locked: r.locked ?? null,
+    ...(r.lockedProblem ? { locked_problem: formatProblem(r.lockedProblem) } : {}),
+    contracts: r.contracts.map((c) => ({
+      path: c.path,
+      ...(c.name === undefined ? {} : { name: c.name }),
+      checks: c.readers.map((x) => ({ via: x.via, rules: x.rules, ...(x.column === undefined ? {} : { column: x.column }), line: x.line, column_in_file: x.col })),
+      compiles_now: c.compilesNow,
+      compiles_locked: c.compilesLocked ?? null,
+      problems: c.problems.map(formatProblem),
+    })),
+    deliveries: r.deliveries.map((d) => ({ path: d.path, contract: d.contract, rows: d.rows, fails_now: d.failsNow, passes_now: d.passesNow, truncated: d.truncated })),
+    skipped: r.skipped,
+    breaks: breaks(r),
+  };
+}
+
+/** One changed finding: where, which check, and the cell (a rule's value already names its cells). */
+function rowLine(c: RowChange): string {
+  const where = c.row === undefined ? "" : c.line === undefined ? `row ${c.row}` : `row ${c.row} (line ${c.line})`;
+  const whole = c.rule.startsWith("rule:") || c.rule.startsWith("group:");
+  const cell = c.value === undefined ? c.column ?? "" : whole || c.column === undefined ? c.value : `${c.column} = ${JSON.stringify(c.value)}`;
+  return `      ${[where, c.rule, cell].filter((x) => x !== "").join("  ")}`;
+}
+
+const plural = (n: number, word: string): string => `${n} ${word}${n === 1 ? "" : "s"}`;
+
+/** The impact report for people: contracts and their checks, then each delivery's changed rows. */
+function renderImpact(r: ImpactReport): string {
+  const lines: string[] = [];
+  const lockedText = r.locked ? (r.locked.revision === "lock" ? `lock (${r.locked.version})` : `${r.locked.revision.slice(0, 12)} (${r.locked.version})`) : "locked version not at hand";
+  lines.push(`${r.table}: ${lockedText} -> working copy (${r.working.version})${r.locked?.same ? ", same content" : ""}`);
+  if (r.lockedProblem) lines.push(`  (${formatProblem(r.lockedProblem)})`);
+  lines.push(r.contracts.length === 0 ? "no contract reads this table" : `contracts reading ${r.table}:`);
+  for (const c of r.contracts) {
+    lines.push(`  ${c.path}${c.compilesNow ? "" : c.compilesLocked ? "  BREAKS: compiled with the locked table, not with the working copy" : "  does not compile"}`);
+    for (const x of c.readers) lines.push(`    ${x.rules.join(", ")}  (${x.via}, line ${x.line})`);
+    for (const p of c.problems) lines.push(`    ${formatProblem(p)}`);
+  }
+  if (r.deliveries.length + r.skipped.length > 0) lines.push("deliveries:");
+  for (const d of r.deliveries) {
+    const summary = d.failsNow.length + d.passesNow.length === 0 ? "no change" : `${d.failsNow.length} newly failing, ${d.passesNow.length} newly passing`;
+    lines.push(`  ${d.path} (${d.contract}, ${plural(d.rows, "row")}): ${summary}${d.truncated ? " (findings cut; raise --max-findings)" : ""}`);
+    if (d.failsNow.length > 0) lines.push("    fails now, passed under the lock:", ...d.failsNow.map(rowLine));
+    if (d.passesNow.length > 0) lines.push("    passes now, failed under the lock:", ...d.passesNow.map(rowLine));
+  }
+  for (const s of r.skipped) lines.push(`  ${s.path}: not checked (${s.reason.replaceAll("-", " ")}${s.contract === undefined ? "" : `: ${s.contract}`})`);
+  if (r.deliveries.length + r.skipped.length === 0 && r.locked && !r.locked.same) lines.push("give --data <glob> to see which delivery rows change");
+  if (r.deliveries.length > 0) {
+    const fails = r.deliveries.reduce((n, d) => n + d.failsNow.length, 0);
+    const passes = r.deliveries.reduce((n, d) => n + d.passesNow.length, 0);
+    lines.push(`${plural(fails, "finding")} newly failing (passed under the lock), ${passes} newly passing (failed under the lock)`);
+  }
+  return lines.join("\n") + "\n";
+}
+
+const SUBS: Readonly<Record<string, Sub>> = { list, show, lint, lock, diff, impact };
 
 /**
  * `tablegate ref ...`: list, show, lint, lock and diff the registry. Returns the exit status: 0 done,
@@ -205,10 +308,25 @@ export async function runRef(args: readonly string[], io: RefIo, options: RefOpt
     parsed = parseArgs({
       args: [...rest],
       allowPositionals: true,
-      options: { json: { type: "boolean" }, from: { type: "string" }, page: { type: "string" }, "page-size": { type: "string" } },
+      options: {
+        json: { type: "boolean" },
+        from: { type: "string" },
+        page: { type: "string" },
+        "page-size": { type: "string" },
+        data: { type: "string", multiple: true },
+        contract: { type: "string" },
+        "max-findings": { type: "string" },
+      },
     });
   } catch (e) {
     return bad(io, (e as Error).message);
   }
-  return sub(parsed.positionals, parsed.values, { io, root: findRoot(io.cwd), roots: options.registries ?? [] });
+  return sub(parsed.positionals, parsed.values, { io, root: findRoot(io.cwd), roots: options.registries ?? [], ...(options.config ? { config: options.config } : {}) });
+}
+
+/** `tablegate ref ...` as a CLI command: reads tablegate.yaml for further registries, then runs `runRef`. */
+export async function ref(argv: readonly string[], io: Io): Promise<number> {
+  const config = await loadProjectConfig(findRoot(io.cwd));
+  if (!config.ok) return problems(io, config.problems);
+  return runRef(argv, io, { registries: config.value.registries, config: config.value });
 }

@@ -1,17 +1,19 @@
 import { check, CHECK_USAGE } from "./check.js";
 import { EXIT, type Io } from "./io.js";
 import { lint } from "./lint.js";
+import { ref, REF_USAGE } from "./ref.js";
 import { schema } from "./schema.js";
 
 export type { Io } from "./io.js";
 
 type Command = (argv: readonly string[], io: Io) => Promise<number>;
 
-const COMMANDS: Readonly<Record<string, Command>> = { check, lint, schema };
+const COMMANDS: Readonly<Record<string, Command>> = { check, lint, ref, schema };
 
 const USAGE = `usage:
   ${CHECK_USAGE}
   tablegate lint <contract...>
+  ${REF_USAGE}
   tablegate schema [contract|report]
 `;
 
