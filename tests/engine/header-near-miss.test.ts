@@ -15,10 +15,9 @@ describe("header near miss", () => {
     expect(header.some((f) => f.message.includes("ship_date") && f.message.includes("Ship Date"))).toBe(true);
   });
 
-  it("a far-off name suggests nothing of the kind", async () => {
+  it("a far-off name is reported as itself", async () => {
     const { report } = await checkJson(contract, "sku,colour\nA,red\n");
     const unexpected = report.findings.find((f) => f.rule === "header.unexpected");
     expect(unexpected?.column).toBe("colour");
-    expect(unexpected?.message).not.toContain("ship_date");
   });
 });
