@@ -1,9 +1,10 @@
 import { readFileSync } from "node:fs";
 import Ajv2020 from "ajv/dist/2020.js";
 import type { ErrorObject, ValidateFunction } from "ajv";
-import { isScalar, LineCounter, parseDocument } from "yaml";
+import { isScalar } from "yaml";
+import { pointerPath } from "../contract/schema-errors.js";
+import { parseYamlSource, problemAt, type YamlPath, type YamlSource } from "../contract/yaml-source.js";
 import { fail, ok, type Problem, type Result } from "../problem.js";
-import { pointerKeys, problemAtPath } from "./yaml-positions.js";
 
 /** Types a registry column may declare; cells are checked against them when the table loads. */
 export type RefColumnType = "text" | "integer" | "decimal" | "boolean" | "date";
@@ -57,19 +58,18 @@ function describe(e: ErrorObject): { message: string; onKey: boolean; extra?: st
   }
 }
 
+/** A problem at the node `path` leads to, or at the key of its last step. */
+function problemAtPath(src: YamlSource, path: YamlPath, message: string, onKey = false): Problem {
+  const last = path[path.length - 1];
+  return onKey && last !== undefined ? problemAt(src, path.slice(0, -1), message, { key: String(last) }) : problemAt(src, path, message);
+}
+
 /** Parse and validate a registry manifest; every problem carries file:line:col. Never throws. */
 export function parseManifest(text: string, file: string): Result<ManifestTable[]> {
-  const lines = new LineCounter();
-  const doc = parseDocument(text, { lineCounter: lines, prettyErrors: false, uniqueKeys: true });
-  if (doc.errors.length > 0) {
-    return fail(
-      ...doc.errors.map((e): Problem => {
-        const pos = lines.linePos(e.pos[0]);
-        return { file, line: pos.line, column: pos.col, message: e.message.split("\n", 1)[0] ?? e.code };
-      }),
-    );
-  }
-  const data: unknown = doc.toJS();
+  const src = parseYamlSource(file, text);
+  if (src.syntaxProblems.length > 0) return fail(...src.syntaxProblems);
+  const doc = src.doc;
+  const data: unknown = doc.toJS({ maxAliasCount: 100 });
   const validate = schemaValidator();
   if (!validate(data)) {
     const problems: Problem[] = [];
@@ -80,9 +80,9 @@ export function parseManifest(text: string, file: string): Result<ManifestTable[
       // anyOf branches repeat what the branch errors already say
       if (e.keyword === "anyOf" && (validate.errors ?? []).some((o) => o !== e && o.instancePath === e.instancePath)) continue;
       const d = describe(e);
-      const path = pointerKeys(e.instancePath);
+      const path: (string | number)[] = pointerPath(e.instancePath);
       if (d.extra !== undefined) path.push(d.extra);
-      const problem = problemAtPath(file, doc, lines, path, d.message, d.onKey);
+      const problem = problemAtPath(src, path, d.message, d.onKey);
       const id = `${problem.line}:${problem.column}:${problem.message}`;
       if (!seen.has(id)) {
         seen.add(id);
@@ -94,7 +94,7 @@ export function parseManifest(text: string, file: string): Result<ManifestTable[
   const tables = (data as { tables: Record<string, Record<string, unknown>> }).tables;
   const out: ManifestTable[] = [];
   const pos = (path: (string | number)[], onKey = false): Position => {
-    const p = problemAtPath(file, doc, lines, path, "", onKey);
+    const p = problemAtPath(src, path, "", onKey);
     return { line: p.line ?? 1, column: p.column ?? 1 };
   };
   for (const [name, t] of Object.entries(tables)) {
