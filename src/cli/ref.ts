@@ -124,13 +124,19 @@ const show: Sub = async (positionals, values, ctx) => {
   return PASS;
 };
 
-const lint: Sub = async (_p, _v, ctx) => {
+const lint: Sub = async (_p, values, ctx) => {
+  const report = (status: number, tables: number, found: readonly (Problem & { table?: string; kind?: string })[]): number => {
+    if (!values.json) return found.length > 0 ? problems(ctx.io, found, status) : status;
+    ctx.io.stdout(JSON.stringify({ ok: found.length === 0, tables, problems: found }, null, 2) + "\n");
+    return status;
+  };
   const reg = await loadRegistry(ctx.root, ctx.roots);
-  if (!reg.ok) return problems(ctx.io, reg.problems, FAIL);
+  if (!reg.ok) return report(FAIL, 0, reg.problems);
   const lock = await readLock(ctx.root);
-  if (!lock.ok) return problems(ctx.io, lock.problems, FAIL);
+  if (!lock.ok) return report(FAIL, reg.value.tables().length, lock.problems);
   const issues = compareLock(lock.value, reg.value);
-  if (issues.length > 0) return problems(ctx.io, issues.map(lockIssueProblem), FAIL);
+  if (issues.length > 0) return report(FAIL, reg.value.tables().length, issues.map((i) => ({ ...lockIssueProblem(i), table: i.table, kind: i.kind })));
+  if (values.json) return report(PASS, reg.value.tables().length, []);
   ctx.io.stdout(`registry ok: ${reg.value.tables().length} tables, lock matches\n`);
   return PASS;
 };
