@@ -229,7 +229,7 @@ const impact: Sub = async (positionals, values, ctx) => {
   const r = await tableImpact(ctx.root, name, {
     registry: reg,
     config,
-    data: values.data ?? [],
+    data: (values.data ?? []).map((g) => g.replace(/^(\.\/)+/, "")),
     ...(contract === undefined ? {} : { contract }),
     ...(values.from === undefined ? {} : { from: values.from }),
     maxFindings,
@@ -264,8 +264,9 @@ function impactJson(r: ImpactReport): unknown {
 function rowLine(c: RowChange): string {
   const where = c.row === undefined ? "" : c.line === undefined ? `row ${c.row}` : `row ${c.row} (line ${c.line})`;
   const whole = c.rule.startsWith("rule:") || c.rule.startsWith("group:");
+  const level = c.level === "error" ? "" : `(${c.level})`;
   const cell = c.value === undefined ? c.column ?? "" : whole || c.column === undefined ? c.value : `${c.column} = ${JSON.stringify(c.value)}`;
-  return `      ${[where, c.rule, cell].filter((x) => x !== "").join("  ")}`;
+  return `      ${[where, c.rule, cell, level].filter((x) => x !== "").join("  ")}`;
 }
 
 const plural = (n: number, word: string): string => `${n} ${word}${n === 1 ? "" : "s"}`;

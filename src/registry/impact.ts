@@ -9,7 +9,7 @@ import { fail, ok, type Problem, type Result } from "../problem.js";
 import { contractFor, type ProjectConfig } from "../project/config.js";
 import { routedFiles } from "../project/files.js";
 import { globToRegExp } from "../project/glob.js";
-import type { DeliveryReport, Finding } from "../report/model.js";
+import type { DeliveryReport, Finding, Level } from "../report/model.js";
 import { revisionWithContent, tableAtRevision } from "./git.js";
 import type { Registry } from "./load.js";
 import { LOCK_FILE, readLock } from "./lock.js";
@@ -34,6 +34,7 @@ export interface TableReader {
 /** A row whose findings of the table-reading checks differ between the locked and the working table. */
 export interface RowChange {
   readonly rule: string;
+  readonly level: Level;
   readonly row?: number;
   readonly line?: number;
   readonly column?: string;
@@ -205,6 +206,7 @@ export function expandReaders(readers: readonly TableReader[], plan: Plan): Tabl
 function change(f: Finding): RowChange {
   return {
     rule: f.rule,
+    level: f.level,
     ...(f.row === undefined ? {} : { row: f.row }),
     ...(f.line === undefined ? {} : { line: f.line }),
     ...(f.column === undefined ? {} : { column: f.column }),
@@ -370,7 +372,10 @@ export async function tableImpact(root: string, tableName: string, options: Impa
   });
 }
 
-/** True when the working table breaks something: a row that newly fails, or a contract that no longer compiles. */
+/**
+ * True when the working table breaks something: a row with a new error-level finding (what makes `check`
+ * fail by default), or a contract that compiled with the locked table and no longer does.
+ */
 export function breaks(report: ImpactReport): boolean {
-  return report.deliveries.some((d) => d.failsNow.length > 0) || report.contracts.some((c) => c.compilesLocked === true && !c.compilesNow);
+  return report.deliveries.some((d) => d.failsNow.some((c) => c.level === "error")) || report.contracts.some((c) => c.compilesLocked === true && !c.compilesNow);
 }

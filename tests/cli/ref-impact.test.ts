@@ -161,6 +161,29 @@ describe("tablegate ref impact", () => {
     expect(j.breaks).toBe(false);
   });
 
+  it("sensitive cells stay masked; a new warning-level finding is listed but does not fail the run", async () => {
+    const root = await project();
+    await writeFile(
+      join(root, "contracts/dealer-orders.contract.yaml"),
+      CONTRACT.replace("category: { type: text, codes", "category: { type: text, sensitive: true, codes").replace("  - id: region-matches-territory\n", "  - id: region-matches-territory\n    level: warning\n"),
+    );
+    git(root, "commit", "-q", "-am", "sensitive category, region rule a warning");
+    await writeFile(join(root, "reference/gear-categories.csv"), "code,name\nTENT,Tents\nPACK,Backpacks\n");
+    const cats = await tg(root, "ref", "impact", "gear-categories", "--data", "./data/orders-w48.csv", "--json");
+    expect(cats.code).toBe(1);
+    expect(cats.out).not.toContain("STOVE");
+    const change = (JSON.parse(cats.out) as ImpactJson).deliveries[0]?.fails_now[0];
+    expect([change?.rule, change?.row, change?.value?.length]).toEqual(["category.codes", 3, 5]);
+    expect((await tg(root, "ref", "impact", "gear-categories", "--data", "data/orders-w48.csv")).out).not.toContain("STOVE");
+
+    await writeFile(join(root, "reference/gear-categories.csv"), CATEGORIES);
+    await writeFile(join(root, "reference/dealer-territories.csv"), "state,region\nWA,PACIFIC\nOR,PACIFIC\nCO,ROCKIES\nUT,MOUNTAIN\n");
+    const regions = await tg(root, "ref", "impact", "dealer-territories", "--data", "data/orders-w48.csv", "--json");
+    expect(regions.code).toBe(0);
+    const j = JSON.parse(regions.out) as ImpactJson & { deliveries: { fails_now: { level: string }[] }[] };
+    expect(j.deliveries[0]?.fails_now.map((c) => [c.level, (c as Change).row])).toEqual([["warning", 2]]);
+  });
+
   it("a column the contract looks up removed from the table: the contract breaks", async () => {
     const root = await project();
     await writeFile(join(root, "reference/dealer-territories.csv"), "state,zone\nWA,PACIFIC\nOR,PACIFIC\nCO,MOUNTAIN\nUT,MOUNTAIN\n");
