@@ -12,9 +12,12 @@ const utf16be = (s: string): Buffer => Buffer.from(s, "utf16le").swap16();
 describe("UTF-8", () => {
   // Unicode Standard, section 23.8: U+FEFF at the start of a UTF-8 file is a byte order mark (EF BB BF).
   it("drops a byte order mark", async () => {
-    const read = await readBytes(bytes([0xef, 0xbb, 0xbf], "id,name\n1,x\n"));
+    const data = bytes([0xef, 0xbb, 0xbf], "id,name\n1,x\n");
+    const read = await readBytes(data);
     expect(read.rows[0]).toEqual(["id", "name"]);
     expect(read.summary.encoding).toBe("utf-8");
+    for (const size of [1, 2]) expect((await readChunked(data, {}, size)).rows[0]).toEqual(["id", "name"]);
+    expect((await readBytes(bytes([0xef, 0xbb, 0xbf]))).rows).toEqual([]);
   });
 
   it("reads multi-byte characters, whole and split across every chunk boundary", async () => {
