@@ -3,6 +3,7 @@ import type { SpecError } from "../contract/spec-error.js";
 import { compareValues, formatValue, parseBound } from "../types/index.js";
 import type { Value } from "../values.js";
 import { miss, type CheckDefinition, type CompiledCheck } from "./definition.js";
+import { compareWritten } from "./exact-decimal.js";
 
 const ORDERED = ["integer", "decimal", "date", "timestamp", "time"] as const;
 
@@ -20,12 +21,18 @@ function compileBound(key: "min" | "max", spec: ColumnSpec, column: string): Com
   const limit = bound(spec, key);
   if (Array.isArray(limit)) return limit;
   const shown = formatValue(limit as Value);
+  const numeric = typeof limit === "number";
+  // Numbers compare as doubles; a tie is settled on the digits as written (0.3000000000000000001 > 0.3).
+  const order = (v: Value, text: string): number => {
+    const c = compareValues(v, limit as Value);
+    return c === 0 && numeric ? compareWritten(text, limit as number, spec) : c;
+  };
   if (key === "min") {
     const m = miss(`>= ${shown}`, `is below the minimum ${shown}`);
-    return { description: `${column} at least ${shown}`, test: (v) => (compareValues(v, limit as Value) < 0 ? m : undefined) };
+    return { description: `${column} at least ${shown}`, test: (v, text) => (order(v, text) < 0 ? m : undefined) };
   }
   const m = miss(`<= ${shown}`, `is above the maximum ${shown}`);
-  return { description: `${column} at most ${shown}`, test: (v) => (compareValues(v, limit as Value) > 0 ? m : undefined) };
+  return { description: `${column} at most ${shown}`, test: (v, text) => (order(v, text) > 0 ? m : undefined) };
 }
 
 /** `min`: the smallest allowed value, inclusive. */

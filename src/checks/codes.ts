@@ -23,7 +23,10 @@ export const codes: CheckDefinition = {
     } else {
       const { table, column } = c as { table: string; column: string };
       const set = ctx.codeSet(table, column);
-      if (typeof set === "string") return [{ path: ["codes"], message: set }];
+      if (!(set instanceof Set)) {
+        const wrong = set as { field: "table" | "column"; message: string };
+        return [{ path: ["codes", wrong.field], message: wrong.message }];
+      }
       allowed = set;
       where = `a ${column} in reference table ${table}`;
     }

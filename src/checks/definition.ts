@@ -27,8 +27,8 @@ export interface CheckContext {
   /** Declared column name -> index in RowView arrays. */
   columnIndex(name: string): number | undefined;
   readonly columnNames: readonly string[];
-  /** Values of a registry table column, or a message saying why there are none. */
-  codeSet(table: string, column: string): ReadonlySet<string> | string;
+  /** Values of a registry table column, or which of the two names is wrong and why. */
+  codeSet(table: string, column: string): ReadonlySet<string> | { readonly field: "table" | "column"; readonly message: string };
   /** Today, as days since 1970-01-01 (UTC), fixed for the whole run. */
   readonly today: number;
 }

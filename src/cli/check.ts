@@ -1,4 +1,4 @@
-import { isAbsolute, join } from "node:path";
+import { isAbsolute, join, resolve } from "node:path";
 import { parseArgs } from "node:util";
 import { checkFile } from "../check.js";
 import { loadContract } from "../contract/load.js";
@@ -73,14 +73,14 @@ export async function check(argv: readonly string[], io: Io): Promise<number> {
       plan = loaded.value;
       plans.set(job.contract, plan);
     }
-    const r = await checkFile(plan, join(root, job.file), {
+    const r = await checkFile(plan, resolve(root, job.file), {
       reportPath: job.file,
       contractPath: job.contract,
       maxFindings,
       failOn: failOn as Level,
       profile: targets.value.some((t) => t.format === "html"),
     });
-    if (!r.ok) return unusable(io, r.problems.map((p) => ({ ...p, file: p.file === join(root, job.file) ? job.file : p.file })));
+    if (!r.ok) return unusable(io, r.problems.map((p) => ({ ...p, file: p.file === resolve(root, job.file) ? job.file : p.file })));
     reports.push(r.value);
   }
   const written = await writeReports(reports, targets.value, io, root, unclaimed);

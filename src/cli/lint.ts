@@ -1,6 +1,7 @@
 import { isAbsolute, join } from "node:path";
 import { loadContract } from "../contract/load.js";
 import { formatProblem } from "../problem.js";
+import { loadProjectConfig } from "../project/config.js";
 import { loadRegistry } from "../registry/index.js";
 import { EXIT, type Io } from "./io.js";
 import { badArgument, unusable } from "./problems.js";
@@ -10,7 +11,9 @@ import { findRoot, reportPath } from "./root.js";
 export async function lint(argv: readonly string[], io: Io): Promise<number> {
   if (argv.length === 0) return badArgument(io, "lint needs at least one contract file\nusage: tablegate lint <contract...>");
   const root = findRoot(io.cwd);
-  const registry = await loadRegistry(root);
+  const config = await loadProjectConfig(root);
+  if (!config.ok) return unusable(io, config.problems);
+  const registry = await loadRegistry(root, config.value.registries);
   if (!registry.ok) return unusable(io, registry.problems);
   let bad = 0;
   for (const file of argv) {

@@ -104,9 +104,9 @@ export function compilePlan({ src, spec, sha256, registry, today = todayDays() }
       today,
       codeSet: (table, column) => {
         const t = registry.table(table);
-        if (!t) return `unknown reference table "${table}"${suggestion(table, registry.tables().map((x) => x.name))}`;
+        if (!t) return { field: "table", message: `unknown reference table "${table}"${suggestion(table, registry.tables().map((x) => x.name))}; tables: ${registry.tables().map((x) => x.name).join(", ")}` };
         const values = t.values(column);
-        if (!values) return `reference table "${table}" has no column "${column}"${suggestion(column, t.columns)}; columns: ${t.columns.join(", ")}`;
+        if (!values) return { field: "column", message: `reference table "${table}" has no column "${column}"${suggestion(column, t.columns)}; columns: ${t.columns.join(", ")}` };
         usedTables.add(table);
         return values;
       },
@@ -198,7 +198,8 @@ export function compilePlan({ src, spec, sha256, registry, today = todayDays() }
       }
     : undefined;
   const blankShares = Object.entries(spec.totals?.blank_share ?? {}).flatMap(([name, max]) => {
-    const column = needColumn(name, ["totals", "blank_share"]);
+    const column = columnIndex(name);
+    if (column === undefined) problems.push(problemAt(src, ["totals", "blank_share"], `unknown column "${name}"${suggestion(name, names)}; declared: ${names.join(", ")}`, { key: name }));
     if (column === undefined) return [];
     return [{ check: addCheck(`totals.blank_share.${name}`, "error", `at most ${max * 100}% of ${name} blank`, { path: ["totals", "blank_share"], key: name }), column, max }];
   });

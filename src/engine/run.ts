@@ -9,7 +9,15 @@ import { matchHeader, positional, type HeaderMatch } from "./header.js";
 import { createProfiler } from "./profile.js";
 import { createRowHasher } from "./row-hash.js";
 import { createSeenSet } from "./seen-set.js";
-import { shownValue } from "./shown.js";
+import { cellValue, shownValue } from "./shown.js";
+
+/** A key part as compared: typed values by what they mean (`01` = `1`, `1.50` = `1.5`), text as written. */
+function keyText(v: Value, text: string): string {
+  if (typeof v === "string") return text;
+  if (typeof v === "number" || typeof v === "boolean") return String(v);
+  if (v === null) return "";
+  return v.kind === "date" ? `d${v.days}` : v.kind === "timestamp" ? `t${v.ms}` : `s${v.seconds}`;
+}
 
 export interface EngineOptions {
   readonly maxFindings: number;
@@ -98,25 +106,24 @@ export async function runPlan(plan: Plan, batches: AsyncIterable<readonly RawRec
       if (col.when !== undefined && !isTrue(col.when.evaluate(values))) continue;
       const raw = raws[i] as string;
       const text = texts[i] as string;
-      if (col.spacesCheck >= 0 && text !== "" && raw !== text) {
-        emit(col.spacesCheck, rowNo, line, { column: col.name, value: shownValue(raw, col.sensitive), expected: "no leading or trailing spaces", message: `${col.name} ${shownValue(raw, col.sensitive)} has leading or trailing spaces` });
-      }
       if (s === 1) {
-        if (col.required) emit(col.requiredCheck, rowNo, line, { column: col.name, value: raw, expected: "a value", message: `${col.name} is blank but required` });
+        if (col.required) emit(col.requiredCheck, rowNo, line, { column: col.name, value: cellValue(raw, col.sensitive), expected: "a value", message: `${col.name} is blank but required` });
         continue;
       }
       if (s === 2) {
-        const shown = shownValue(raw, col.sensitive);
-        emit(col.typeCheck, rowNo, line, { column: col.name, value: shown, expected: col.expected, message: `${col.name} ${shown} is not ${col.expected}` });
+        // A cell that does not parse is one finding; its other checks, spaces included, are skipped.
+        emit(col.typeCheck, rowNo, line, { column: col.name, value: cellValue(raw, col.sensitive), expected: col.expected, message: `${col.name} ${shownValue(raw, col.sensitive)} is not ${col.expected}` });
         continue;
+      }
+      if (col.spacesCheck >= 0 && raw !== text) {
+        emit(col.spacesCheck, rowNo, line, { column: col.name, value: cellValue(raw, col.sensitive), expected: "no leading or trailing spaces", message: `${col.name} ${shownValue(raw, col.sensitive)} has leading or trailing spaces` });
       }
       const checks = col.cellChecks;
       for (let c = 0; c < checks.length; c++) {
         const cc = checks[c] as (typeof checks)[number];
         const m = cc.test(values[i] as Value, text, row);
         if (m === undefined) continue;
-        const shown = shownValue(raw, col.sensitive);
-        emit(cc.check, rowNo, line, { column: col.name, value: shown, expected: m.expected, message: `${col.name} ${shown} ${m.reason}` }, m.level);
+        emit(cc.check, rowNo, line, { column: col.name, value: cellValue(raw, col.sensitive), expected: m.expected, message: `${col.name} ${shownValue(raw, col.sensitive)} ${m.reason}` }, m.level);
       }
     }
     for (let k = 0; k < plan.keys.length; k++) {
@@ -125,7 +132,7 @@ export async function runPlan(plan: Plan, batches: AsyncIterable<readonly RawRec
       let complete = true;
       for (const c of key.columns) {
         if (state[c] !== 0 && state[c] !== 2) complete = false;
-        hasher.add(texts[c] as string);
+        hasher.add(state[c] === 0 ? keyText(values[c] as Value, texts[c] as string) : (texts[c] as string));
       }
       if (!complete) continue; // SQL UNIQUE: a key with a blank part never equals another
       const first = (keySets[k] as ReturnType<typeof createSeenSet>).firstOrAdd(hasher.hi, hasher.lo, rowNo);

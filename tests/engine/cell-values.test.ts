@@ -12,20 +12,20 @@ import { expectFinding, expectNoFinding } from "../helpers/findings.js";
 
 const contract = "tablegate: 1\nname: padded\ncolumns:\n  a: { type: integer, min: 5 }\n  b: { type: text }\n";
 
-describe("padded cells (pending)", () => {
+describe("padded cells", () => {
   it("a finding on a padded cell still passes (sanity: both findings are there)", async () => {
     const { report } = await checkJson(contract, "a,b\n 3,x\n");
     expectFinding(report, { rule: "a.min", row: 1, line: 2, column: "a" });
     expectFinding(report, { rule: "a.spaces", row: 1, line: 2, column: "a", level: "warning" });
   });
 
-  it.fails("value is the cell text (raw or trimmed), not a quoted rendering", async () => {
+  it("value is the cell text (raw or trimmed), not a quoted rendering", async () => {
     const { report } = await checkJson(contract, "a,b\n 3,x\n");
     const f = expectFinding(report, { rule: "a.min", row: 1, line: 2, column: "a" });
     expect([" 3", "3"]).toContain(f.value);
   });
 
-  it.fails("a padded cell that fails its type is one finding: a.type only", async () => {
+  it("a padded cell that fails its type is one finding: a.type only", async () => {
     const { report } = await checkJson(contract, "a,b\n x ,y\n");
     expectFinding(report, { rule: "a.type", row: 1, line: 2, column: "a", level: "error" });
     expectNoFinding(report, { rule: "a.spaces", row: 1 });
