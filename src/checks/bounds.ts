@@ -21,11 +21,13 @@ function compileBound(key: "min" | "max", spec: ColumnSpec, column: string): Com
   const limit = bound(spec, key);
   if (Array.isArray(limit)) return limit;
   const shown = formatValue(limit as Value);
-  const numeric = typeof limit === "number";
   // Numbers compare as doubles; a tie is settled on the digits as written (0.3000000000000000001 > 0.3).
+  // Decimals of at most 15 significant digits map to distinct doubles, so short ties are real ties.
+  const numeric = typeof limit === "number";
+  const shortBound = numeric && String(limit).replace(/[-.]/g, "").length <= 15;
   const order = (v: Value, text: string): number => {
     const c = compareValues(v, limit as Value);
-    return c === 0 && numeric ? compareWritten(text, limit as number, spec) : c;
+    return c === 0 && numeric && !(shortBound && text.length <= 15) ? compareWritten(text, limit as number, spec) : c;
   };
   if (key === "min") {
     const m = miss(`>= ${shown}`, `is below the minimum ${shown}`);

@@ -118,7 +118,7 @@ async function planJobs(root: string, config: ProjectConfig, files: string[], co
 }
 
 async function loadPlan(root: string, contract: string, registry: Registry): Promise<Result<Plan>> {
-  const loaded = await loadContract(join(root, contract), { registry, label: contract });
+  const loaded = await loadContract(resolve(root, contract), { registry, label: contract });
   if (!loaded.ok) return loaded;
   const lock = await verifyLock(root, registry, loaded.value.references.map((r) => r.table));
   return lock.ok ? loaded : (lock as { ok: false; problems: readonly Problem[] });

@@ -1,21 +1,27 @@
 import type { GroupPlan, Plan } from "../contract/plan.js";
-import { createAccumulator, isFalse, isTrue } from "../expr/index.js";
+import { createGroupTable, isFalse, isTrue } from "../expr/index.js";
 import { createFloatColumn, findOutliers } from "../stats/index.js";
 import { formatValue } from "../types/index.js";
 import type { Value } from "../values.js";
 import type { Collector } from "./collector.js";
-import { createU32List } from "./growable.js";
+import { createU32List, type U32List } from "./growable.js";
 import { shownValue } from "./shown.js";
 
-type Accumulator = ReturnType<typeof createAccumulator>;
+/** Groups of one `groups:` entry: key text to a dense index, and per-group columns. */
+interface Groups {
+  readonly plan: GroupPlan;
+  readonly index: Map<string, number>;
+  readonly table: ReturnType<typeof createGroupTable>;
+  readonly firstRow: U32List;
+  readonly firstLine: U32List;
+  lastRow: Uint32Array;
+  rows: Uint32Array;
+}
 
-interface GroupState {
-  readonly acc: Accumulator;
-  readonly key: string;
-  readonly firstRow: number;
-  readonly firstLine: number;
-  lastRow: number;
-  rows: number;
+function grow(a: Uint32Array): Uint32Array {
+  const next = new Uint32Array(a.length * 2);
+  next.set(a);
+  return next;
 }
 
 /** Cell states the engine passes along: 0 parsed, 1 blank, 2 not of its type, 3 column absent. */
@@ -27,19 +33,25 @@ export type CellStates = Uint8Array;
  * line number (only when groups or outliers need to point back at rows).
  */
 export function createFileEnd(plan: Plan, out: Collector) {
-  const groups = plan.groups.map((g) => ({ plan: g, states: new Map<string, GroupState>() }));
+  const groups: Groups[] = plan.groups.map((g) => ({
+    plan: g,
+    index: new Map<string, number>(),
+    table: createGroupTable(g.assert.aggregates),
+    firstRow: createU32List(),
+    firstLine: createU32List(),
+    lastRow: new Uint32Array(1024),
+    rows: new Uint32Array(1024),
+  }));
   const numbers = plan.outliers.map(() => createFloatColumn());
   const lines = plan.outliers.length > 0 ? createU32List() : undefined;
   const blanks = new Float64Array(plan.columns.length);
   let checked = 0;
 
-  const groupKey = (g: GroupPlan, texts: readonly string[], raws: readonly string[]): string => {
+  // The key is the trimmed texts as given; masking of sensitive parts happens only when a group is reported.
+  const groupKey = (g: GroupPlan, texts: readonly string[]): string => {
+    if (g.by.length === 1) return texts[g.by[0] as number] as string;
     let key = "";
-    for (let i = 0; i < g.by.length; i++) {
-      const c = g.by[i] as number;
-      const t = texts[c] as string;
-      key += (i === 0 ? "" : "\u001f") + (t === "" ? "" : shownValue(raws[c] as string, plan.columns[c]?.sensitive === true).trim());
-    }
+    for (let i = 0; i < g.by.length; i++) key += (i === 0 ? "" : "\u001f") + (texts[g.by[i] as number] as string);
     return key;
   };
 
@@ -58,15 +70,21 @@ export function createFileEnd(plan: Plan, out: Collector) {
       }
       for (const g of groups) {
         if (g.plan.when !== undefined && !isTrue(g.plan.when.evaluate(values))) continue;
-        const key = groupKey(g.plan, texts, raws);
-        let s = g.states.get(key);
-        if (!s) {
-          s = { acc: createAccumulator(g.plan.assert.aggregates), key, firstRow: rowNo, firstLine: line, lastRow: rowNo, rows: 0 };
-          g.states.set(key, s);
+        const key = groupKey(g.plan, texts);
+        let at = g.index.get(key);
+        if (at === undefined) {
+          at = g.index.size;
+          g.index.set(key, at);
+          g.firstRow.push(rowNo);
+          g.firstLine.push(line);
+          if (at >= g.rows.length) {
+            g.rows = grow(g.rows);
+            g.lastRow = grow(g.lastRow);
+          }
         }
-        s.acc.add(values);
-        s.lastRow = rowNo;
-        s.rows++;
+        g.table.add(at, values);
+        g.lastRow[at] = rowNo;
+        g.rows[at] = (g.rows[at] ?? 0) + 1;
       }
     },
     finish(rows: number) {
@@ -74,16 +92,26 @@ export function createFileEnd(plan: Plan, out: Collector) {
       const level = (check: number) => plan.checks[check]?.level ?? "error";
       for (const g of groups) {
         const names = g.plan.by.map((c) => plan.columns[c]?.name ?? "");
-        for (const s of g.states.values()) {
-          const results = s.acc.results();
-          if (!isFalse(g.plan.assert.evaluate(results))) continue;
-          if (!out.fail(g.plan.check, s.firstRow)) continue;
-          const parts = s.key.split("\u001f");
-          const key = names.map((nm, i) => `${nm}=${parts[i] === "" ? "(blank)" : parts[i]}`).join(", ");
+        const failing: number[] = [];
+        const keys: string[] = [];
+        for (const [key, at] of g.index) { // insertion order: by each group's first row
+          if (!isFalse(g.plan.assert.evaluate(g.table.results(at)))) continue;
+          failing.push(at);
+          keys[at] = key;
+        }
+        for (const at of failing) {
+          const firstRow = g.firstRow.at(at);
+          if (!out.fail(g.plan.check, firstRow)) continue;
+          const results = g.table.results(at);
+          const parts = (keys[at] ?? "").split("\u001f");
+          const key = names
+            .map((nm, i) => `${nm}=${parts[i] === "" ? "(blank)" : shownValue(parts[i] ?? "", plan.columns[g.plan.by[i] ?? 0]?.sensitive === true)}`)
+            .join(", ");
           const shown = g.plan.assert.aggregates.map((a, i) => `${a.fn}(${a.arg?.source ?? ""})=${formatValue(results[i] ?? null)}`).join(", ");
-          const span = s.rows === 1 ? `row ${s.firstRow}` : `${s.rows} rows, ${s.firstRow} to ${s.lastRow}`;
+          const count = g.rows[at] ?? 0;
+          const span = count === 1 ? `row ${firstRow}` : `${count} rows, ${firstRow} to ${g.lastRow[at]}`;
           out.keep(g.plan.check, {
-            rule: rule(g.plan.check), level: level(g.plan.check), row: s.firstRow, line: s.firstLine, column: names[0] ?? "",
+            rule: rule(g.plan.check), level: level(g.plan.check), row: firstRow, line: g.firstLine.at(at), column: names[0] ?? "",
             value: key, expected: g.plan.assert.source,
             message: `group ${key} (${span}): ${g.plan.message ?? `${g.plan.assert.source} is false`} (${shown})`,
           });

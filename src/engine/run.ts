@@ -47,7 +47,9 @@ export async function runPlan(plan: Plan, batches: AsyncIterable<readonly RawRec
   const state = new Uint8Array(n); // 0 ok, 1 blank, 2 type error, 3 absent
   const row = { values, texts };
   const blank = plan.input.blank;
-  const onlyEmptyBlank = blank.size === 1;
+  // Most cells are longer than any blank marker ("NA", "N/A"), so only short ones meet the set.
+  let blankMax = 0;
+  for (const b of blank) blankMax = Math.max(blankMax, b.length);
   const keySets = plan.keys.map(() => createSeenSet());
   const dupSet = plan.duplicates === undefined ? undefined : createSeenSet();
   const hasher = createRowHasher();
@@ -83,7 +85,7 @@ export async function runPlan(plan: Plan, batches: AsyncIterable<readonly RawRec
       const raw = cells[pos] ?? "";
       const text = raw.length > 0 && (raw.charCodeAt(0) <= 32 || raw.charCodeAt(raw.length - 1) <= 32 || raw.charCodeAt(0) === 160 || raw.charCodeAt(raw.length - 1) === 160) ? raw.trim() : raw;
       raws[i] = raw;
-      if (text === "" || (!onlyEmptyBlank && blank.has(text))) {
+      if (text === "" || (text.length <= blankMax && blank.has(text))) {
         values[i] = null;
         texts[i] = "";
         state[i] = 1;

@@ -1,8 +1,9 @@
 /**
- * Remembers 64-bit hashes and the row where each was first seen, in typed arrays with open addressing
- * (12 bytes a slot, kept at most half full): about 24 MB per million distinct rows, against several
- * times that for a Map of strings. Two different values collide with odds near n²/2⁶⁵ (about 3 in
- * 100 million at a million rows); a collision would report a false repeat, never hide a real one.
+ * Remembers 64-bit hashes and the row where each was first seen, in one typed array with open
+ * addressing (three 32-bit words a slot: hash high, hash low, row; kept at most half full): about
+ * 24 MB per million distinct rows, against several times that for a Map of strings. Two different
+ * values collide with odds near n²/2⁶⁵ (about 3 in 100 million at a million rows); a collision would
+ * report a false repeat, never hide a real one.
  */
 export interface SeenSet {
   /** Record the hash for `row` (rows count from 1); returns the first row with the same hash, or 0. */
@@ -10,45 +11,47 @@ export interface SeenSet {
   readonly size: number;
 }
 
-export function createSeenSet(initialCapacity = 1 << 12): SeenSet {
-  let capacity = initialCapacity;
-  let his = new Uint32Array(capacity);
-  let los = new Uint32Array(capacity);
-  let rows = new Uint32Array(capacity);
+export function createSeenSet(initialSlots = 1 << 16): SeenSet {
+  let slots = initialSlots;
+  let table = new Uint32Array(slots * 3);
   let size = 0;
 
-  const slot = (hi: number, lo: number, mask: number, h: Uint32Array, l: Uint32Array, r: Uint32Array): number => {
+  /** Word offset of the slot holding (hi, lo), or of the empty slot where it belongs. */
+  const find = (t: Uint32Array, mask: number, hi: number, lo: number): number => {
     let i = (lo ^ Math.imul(hi, 0x9e3779b1)) & mask;
-    while (r[i] !== 0 && (h[i] !== hi || l[i] !== lo)) i = (i + 1) & mask;
-    return i;
+    for (;;) {
+      const at = i * 3;
+      if (t[at + 2] === 0 || (t[at] === hi && t[at + 1] === lo)) return at;
+      i = (i + 1) & mask;
+    }
   };
 
   const grow = () => {
-    const [oh, ol, or] = [his, los, rows];
-    capacity *= 2;
-    his = new Uint32Array(capacity);
-    los = new Uint32Array(capacity);
-    rows = new Uint32Array(capacity);
-    const mask = capacity - 1;
-    for (let j = 0; j < or.length; j++) {
-      const row = or[j] ?? 0;
+    const old = table;
+    slots *= 2;
+    table = new Uint32Array(slots * 3);
+    const mask = slots - 1;
+    for (let at = 0; at < old.length; at += 3) {
+      const row = old[at + 2] as number;
       if (row === 0) continue;
-      const i = slot(oh[j] ?? 0, ol[j] ?? 0, mask, his, los, rows);
-      his[i] = oh[j] ?? 0;
-      los[i] = ol[j] ?? 0;
-      rows[i] = row;
+      const hi = old[at] as number;
+      const lo = old[at + 1] as number;
+      const to = find(table, mask, hi, lo);
+      table[to] = hi;
+      table[to + 1] = lo;
+      table[to + 2] = row;
     }
   };
 
   return {
     firstOrAdd(hi, lo, row) {
-      const i = slot(hi, lo, capacity - 1, his, los, rows);
-      const first = rows[i] ?? 0;
+      const at = find(table, slots - 1, hi, lo);
+      const first = table[at + 2] as number;
       if (first !== 0) return first;
-      his[i] = hi;
-      los[i] = lo;
-      rows[i] = row;
-      if (++size * 2 > capacity) grow();
+      table[at] = hi;
+      table[at + 1] = lo;
+      table[at + 2] = row;
+      if (++size * 2 > slots) grow();
       return 0;
     },
     get size() {
