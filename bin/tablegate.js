@@ -7,4 +7,5 @@ process.exitCode = await run(process.argv.slice(2), {
   env: process.env,
   cwd: process.cwd(),
   stderrIsTty: process.stderr.isTTY === true,
+  stdoutIsTty: process.stdout.isTTY === true,
 });

@@ -14,6 +14,8 @@ export interface CheckOptions {
   readonly failOn?: Level;
   /** Summarise every column (for the HTML report). */
   readonly profile?: boolean;
+  /** Told after each batch: rows so far, raw bytes read so far. */
+  readonly onProgress?: (rows: number, bytesRead: number) => void;
 }
 
 /**
@@ -35,6 +37,7 @@ export async function checkFile(plan: Plan, file: string, options: CheckOptions)
   const { rows, collector, profile } = await runPlan(plan, delivery.records, () => delivery.structureBreak(), {
     maxFindings: options.maxFindings ?? 1000,
     profile: options.profile === true,
+    ...(options.onProgress ? { onBatch: (rows: number) => options.onProgress?.(rows, delivery.bytesRead()) } : {}),
   });
   const summary = delivery.summary();
   const report = buildReport({

@@ -1,4 +1,5 @@
 import { isAbsolute, join, resolve } from "node:path";
+import { stat } from "node:fs/promises";
 import { parseArgs } from "node:util";
 import { checkFile } from "../check.js";
 import { loadContract } from "../contract/load.js";
@@ -10,6 +11,7 @@ import type { DeliveryReport, Level } from "../report/model.js";
 import { loadRegistry, verifyLock, type Registry } from "../registry/index.js";
 import { EXIT, type Io } from "./io.js";
 import { badArgument, unusable } from "./problems.js";
+import { createProgress } from "./progress.js";
 import { parseReportTargets, writeReports } from "./reports.js";
 import { findRoot, reportPath } from "./root.js";
 
@@ -73,14 +75,27 @@ export async function check(argv: readonly string[], io: Io): Promise<number> {
       plan = loaded.value;
       plans.set(job.contract, plan);
     }
-    const r = await checkFile(plan, resolve(root, job.file), {
+    const path = resolve(root, job.file);
+    const size = io.stderrIsTty ? ((await stat(path).catch(() => undefined))?.size ?? 0) : 0;
+    let read = 0;
+    const progress = io.stderrIsTty ? createProgress(io.stderr, job.file, size, () => read) : undefined;
+    const r = await checkFile(plan, path, {
       reportPath: job.file,
       contractPath: job.contract,
       maxFindings,
       failOn: failOn as Level,
       profile: targets.value.some((t) => t.format === "html"),
+      ...(progress
+        ? {
+            onProgress: (rows: number, bytes: number) => {
+              read = bytes;
+              progress.update(rows);
+            },
+          }
+        : {}),
     });
-    if (!r.ok) return unusable(io, r.problems.map((p) => ({ ...p, file: p.file === resolve(root, job.file) ? job.file : p.file })));
+    progress?.done();
+    if (!r.ok) return unusable(io, r.problems.map((p) => ({ ...p, file: p.file === path ? job.file : p.file })));
     reports.push(r.value);
   }
   const written = await writeReports(reports, targets.value, io, root, unclaimed);

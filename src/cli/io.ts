@@ -4,8 +4,10 @@ export interface Io {
   readonly stderr: (text: string) => void;
   readonly env: Readonly<Record<string, string | undefined>>;
   readonly cwd: string;
-  /** Whether stderr is a terminal (progress and colour). */
+  /** Whether stderr is a terminal (progress line). */
   readonly stderrIsTty?: boolean;
+  /** Whether stdout is a terminal (colour in the text report). */
+  readonly stdoutIsTty?: boolean;
 }
 
 /** Exit statuses: the delivery passed, it failed, or the run could not be judged. */

@@ -5,6 +5,7 @@ import type { DeliveryReport } from "../report/model.js";
 import { TOOL_VERSION } from "../report/build.js";
 import { WRITERS, type ReportFormat } from "../report/formats.js";
 import { githubSummary } from "../report/github-summary.js";
+import { wantColour } from "../report/colour.js";
 import type { Io } from "./io.js";
 
 export interface ReportTarget {
@@ -33,6 +34,7 @@ export async function writeReports(reports: readonly DeliveryReport[], targets: 
   const named = targets.length > 0 || io.env.GITHUB_ACTIONS !== "true" ? targets : [{ format: "github" as const, path: "-" }];
   const all = named.some((t) => t.path === "-" && t.format !== "github") ? named : [{ format: "text" as const, path: "-" }, ...named];
   const ctx = { root, toolVersion: TOOL_VERSION, unclaimed };
+  const terminal = { ...ctx, colour: wantColour(io.env, io.stdoutIsTty === true) };
   const summaryFile = io.env.GITHUB_STEP_SUMMARY;
   if (all.some((t) => t.format === "github") && summaryFile) {
     try {
@@ -42,7 +44,7 @@ export async function writeReports(reports: readonly DeliveryReport[], targets: 
     }
   }
   for (const t of all) {
-    const body = WRITERS[t.format](reports, ctx);
+    const body = WRITERS[t.format](reports, t.path === "-" ? terminal : ctx);
     if (t.path === "-") {
       io.stdout(body);
       continue;

@@ -23,6 +23,8 @@ export interface EngineOptions {
   readonly maxFindings: number;
   /** Also summarise every column for people (the HTML report). */
   readonly profile?: boolean;
+  /** Called after each batch of records with the rows read so far. */
+  readonly onBatch?: (rows: number) => void;
 }
 
 export interface EngineOutcome {
@@ -176,6 +178,7 @@ export async function runPlan(plan: Plan, batches: AsyncIterable<readonly RawRec
       }
       checkRecord(rec, header);
     }
+    options.onBatch?.(rows);
   }
   if (header === undefined) {
     header = matchHeader(plan, [], 1);

@@ -96,6 +96,7 @@ export async function openDelivery(path: string, options: InputOptions): Promise
   return ok({
     records: records(),
     structureBreak: () => broken,
+    bytesRead: () => bytes,
     summary: () => {
       if (summary === undefined) throw new Error("summary() asked before the records were read");
       return summary;

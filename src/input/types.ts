@@ -44,4 +44,6 @@ export interface Delivery {
   structureBreak(): StructureBreak | undefined;
   /** After iteration: encoding used, fallback note, raw size and hash. */
   summary(): DeliverySummary;
+  /** Raw bytes read from the file so far (compressed bytes for `.gz`), for progress. */
+  bytesRead(): number;
 }

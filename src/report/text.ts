@@ -1,5 +1,6 @@
 import type { CheckTally, DeliveryReport, Finding, Level } from "./model.js";
-import type { Writer } from "./writer.js";
+import { paint } from "./colour.js";
+import type { Writer, WriterContext } from "./writer.js";
 
 const ORDER: Readonly<Record<Level, number>> = { error: 0, warning: 1, note: 2 };
 const n = (x: number) => x.toLocaleString("en-US");
@@ -10,10 +11,10 @@ function where(f: Finding): string {
   return f.line === undefined ? "file" : `line ${f.line}`;
 }
 
-function checkBlock(r: DeliveryReport, c: CheckTally): string[] {
+function checkBlock(r: DeliveryReport, c: CheckTally, colour: boolean | undefined): string[] {
   const src = c.source ? `${r.contract.path}:${c.source.line}` : "built in";
   const allowance = c.allow === undefined ? "" : ` · ${(100 * (c.share ?? 0)).toFixed(2)}% of rows, ${c.within_allowance ? "within" : "over"} the ${(100 * c.allow).toFixed(2)}% allowed`;
-  const lines = [`${c.level.toUpperCase().padEnd(7)} ${c.rule} · ${plural(c.failed, "finding")}${allowance}`, `        ${c.description} (${src})`];
+  const lines = [`${paint(colour, c.level, c.level.toUpperCase().padEnd(7))} ${c.rule} · ${plural(c.failed, "finding")}${allowance}`, `        ${c.description} (${src})`];
   const shown = c.examples ?? r.findings.filter((f) => f.rule === c.rule).slice(0, 5);
   for (const f of shown) lines.push(`        ${where(f).padEnd(22)} ${f.message}${f.value !== undefined && !f.message.includes(f.value) ? ` (value ${f.value})` : ""}`);
   const more = c.failed - shown.length;
@@ -21,20 +22,20 @@ function checkBlock(r: DeliveryReport, c: CheckTally): string[] {
   return lines;
 }
 
-function delivery(r: DeliveryReport): string {
+function delivery(r: DeliveryReport, colour: boolean | undefined): string {
   const c = r.counts;
   const head = [
     `${r.input.path} · contract ${r.contract.name}${r.contract.version ? ` ${r.contract.version}` : ""} (${r.contract.path})`,
-    `${r.verdict === "pass" ? "PASS" : "FAIL"} · ${plural(r.input.rows, "row")} · ${plural(c.error, "error")}, ${plural(c.warning, "warning")}, ${plural(c.note, "note")} · ${plural(c.rows_failed, "row")} with errors`,
+    `${r.verdict === "pass" ? paint(colour, "pass", "PASS") : paint(colour, "fail", "FAIL")} · ${plural(r.input.rows, "row")} · ${plural(c.error, "error")}, ${plural(c.warning, "warning")}, ${plural(c.note, "note")} · ${plural(c.rows_failed, "row")} with errors`,
   ];
   const failed = r.checks.filter((k) => k.failed > 0).sort((a, b) => ORDER[a.level] - ORDER[b.level]);
-  const body = failed.flatMap((k) => ["", ...checkBlock(r, k)]);
+  const body = failed.flatMap((k) => ["", ...checkBlock(r, k, colour)]);
   const tail = r.truncated ? ["", `(the JSON report lists the first ${n(r.findings.length)} findings; counts above are complete)`] : [];
   return [...head, ...body, ...tail].join("\n");
 }
 
 /** The report for people reading a terminal or a CI log: per delivery, failed checks by severity, with examples. */
-export const text: Writer = (reports, ctx) => {
+export const text: Writer = (reports, ctx: WriterContext) => {
   const unclaimed = (ctx.unclaimed ?? []).map((f) => `NOTE    ${f}: no contract in tablegate.yaml claims this file; it was not checked`);
-  return [...reports.map(delivery), ...(unclaimed.length ? [unclaimed.join("\n")] : [])].join("\n\n") + "\n";
+  return [...reports.map((r) => delivery(r, ctx.colour)), ...(unclaimed.length ? [unclaimed.join("\n")] : [])].join("\n\n") + "\n";
 };

@@ -8,6 +8,8 @@ export interface WriterContext {
   readonly toolVersion: string;
   /** Files the run was asked about that no contract claims (root-relative). */
   readonly unclaimed?: readonly string[];
+  /** ANSI colour in text output (terminals only; see report/colour.ts). */
+  readonly colour?: boolean;
 }
 
 /** A pure function from the reports of one run to the text of one output format. */
