@@ -1,3 +1,4 @@
+import { stat } from "node:fs/promises";
 import type { Plan } from "./contract/plan.js";
 import { runPlan } from "./engine/run.js";
 import { openDelivery } from "./input/index.js";
@@ -34,9 +35,11 @@ export async function checkFile(plan: Plan, file: string, options: CheckOptions)
   });
   if (!opened.ok) return opened;
   const delivery = opened.value;
+  const size = file.endsWith(".gz") ? undefined : (await stat(file).catch(() => undefined))?.size;
   const { rows, collector, profile } = await runPlan(plan, delivery.records, () => delivery.structureBreak(), {
     maxFindings: options.maxFindings ?? 1000,
     profile: options.profile === true,
+    ...(size === undefined ? {} : { sizeHint: size }),
     ...(options.onProgress ? { onBatch: (rows: number) => options.onProgress?.(rows, delivery.bytesRead()) } : {}),
   });
   const summary = delivery.summary();

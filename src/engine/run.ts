@@ -8,7 +8,7 @@ import { createFileEnd } from "./file-end.js";
 import { matchHeader, positional, type HeaderMatch } from "./header.js";
 import { createProfiler } from "./profile.js";
 import { createRowHasher } from "./row-hash.js";
-import { createSeenSet } from "./seen-set.js";
+import { createSeenSet, type SeenSet } from "./seen-set.js";
 import { cellValue, shownValue } from "./shown.js";
 
 /** A key part as compared: typed values by what they mean (`01` = `1`, `1.50` = `1.5`), text as written. */
@@ -23,6 +23,8 @@ export interface EngineOptions {
   readonly maxFindings: number;
   /** Also summarise every column for people (the HTML report). */
   readonly profile?: boolean;
+  /** The file's size in bytes, to size the key and duplicate tables up front. */
+  readonly sizeHint?: number;
   /** Called after each batch of records with the rows read so far. */
   readonly onBatch?: (rows: number) => void;
 }
@@ -52,8 +54,20 @@ export async function runPlan(plan: Plan, batches: AsyncIterable<readonly RawRec
   // Most cells are longer than any blank marker ("NA", "N/A"), so only short ones meet the set.
   let blankMax = 0;
   for (const b of blank) blankMax = Math.max(blankMax, b.length);
-  const keySets = plan.keys.map(() => createSeenSet());
-  const dupSet = plan.duplicates === undefined ? undefined : createSeenSet();
+  // Sized once from the first batch and the file's size, so the tables rarely have to grow (each
+  // growth re-inserts every entry at random places in memory).
+  let keySets: SeenSet[] = [];
+  let dupSet: SeenSet | undefined;
+  const sizeTables = (batch: readonly RawRecord[]) => {
+    let chars = 0;
+    for (const rec of batch) for (const c of rec.cells) chars += c.length + 1;
+    const perRow = batch.length > 0 ? Math.max(1, chars / batch.length) : 100;
+    const rows = options.sizeHint === undefined ? 0 : Math.min(options.sizeHint / perRow, 50_000_000);
+    let slots = 1 << 12;
+    while (slots < rows * 2) slots *= 2;
+    keySets = plan.keys.map(() => createSeenSet(slots));
+    dupSet = plan.duplicates === undefined ? undefined : createSeenSet(slots);
+  };
   const hasher = createRowHasher();
   const end = createFileEnd(plan, out);
   const profiler = options.profile ? createProfiler(plan) : undefined;
@@ -139,7 +153,7 @@ export async function runPlan(plan: Plan, batches: AsyncIterable<readonly RawRec
         hasher.add(state[c] === 0 ? keyText(values[c] as Value, texts[c] as string) : (texts[c] as string));
       }
       if (!complete) continue; // SQL UNIQUE: a key with a blank part never equals another
-      const first = (keySets[k] as ReturnType<typeof createSeenSet>).firstOrAdd(hasher.hi, hasher.lo, rowNo);
+      const first = (keySets[k] as SeenSet).firstOrAdd(hasher.hi, hasher.lo, rowNo);
       if (first !== 0) {
         const shown = key.columns.map((c) => shownValue(raws[c] as string, cols[c]?.sensitive === true)).join(", ");
         const names = key.columns.map((c) => cols[c]?.name).join(" + ");
@@ -168,7 +182,12 @@ export async function runPlan(plan: Plan, batches: AsyncIterable<readonly RawRec
     profiler?.row(values, texts, state);
   };
 
+  let sized = false;
   for await (const batch of batches) {
+    if (!sized) {
+      sizeTables(batch);
+      sized = true;
+    }
     for (let b = 0; b < batch.length; b++) {
       const rec = batch[b] as RawRecord;
       if (header === undefined) {
