@@ -16,6 +16,9 @@ interface Groups {
   readonly firstLine: U32List;
   lastRow: Uint32Array;
   rows: Uint32Array;
+  /** The previous row's key and group: deliveries often list a group's rows together. */
+  recentKey: string | undefined;
+  recent: number;
 }
 
 function grow(a: Uint32Array): Uint32Array {
@@ -41,6 +44,8 @@ export function createFileEnd(plan: Plan, out: Collector) {
     firstLine: createU32List(),
     lastRow: new Uint32Array(1024),
     rows: new Uint32Array(1024),
+    recentKey: undefined,
+    recent: 0,
   }));
   const numbers = plan.outliers.map(() => createFloatColumn());
   const lines = plan.outliers.length > 0 ? createU32List() : undefined;
@@ -71,7 +76,8 @@ export function createFileEnd(plan: Plan, out: Collector) {
       for (const g of groups) {
         if (g.plan.when !== undefined && !isTrue(g.plan.when.evaluate(values))) continue;
         const key = groupKey(g.plan, texts);
-        let at = g.index.get(key);
+        let at = key === g.recentKey ? g.recent : g.index.get(key);
+        g.recentKey = key;
         if (at === undefined) {
           at = g.index.size;
           g.index.set(key, at);
@@ -82,6 +88,7 @@ export function createFileEnd(plan: Plan, out: Collector) {
             g.lastRow = grow(g.lastRow);
           }
         }
+        g.recent = at;
         g.table.add(at, values);
         g.lastRow[at] = rowNo;
         g.rows[at] = (g.rows[at] ?? 0) + 1;

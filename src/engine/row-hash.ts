@@ -13,19 +13,24 @@ export interface RowHasher {
 export function createRowHasher(): RowHasher {
   let h1 = 0x811c9dc5;
   let h2 = 0x9747b28c;
-  const mix = (c: number) => {
-    h1 = Math.imul(h1 ^ c, 0x01000193);
-    h2 = Math.imul(h2 ^ c, 0x5bd1e995);
-    h2 ^= h2 >>> 15;
-  };
   return {
     reset() {
       h1 = 0x811c9dc5;
       h2 = 0x9747b28c;
     },
     add(text: string) {
-      for (let i = 0; i < text.length; i++) mix(text.charCodeAt(i));
-      mix(0x1f);
+      // Locals, not the closure's variables, inside the loop: this runs for every character of a row.
+      let a = h1;
+      let b = h2;
+      for (let i = 0; i < text.length; i++) {
+        const c = text.charCodeAt(i);
+        a = Math.imul(a ^ c, 0x01000193);
+        b = Math.imul(b ^ c, 0x5bd1e995);
+        b ^= b >>> 15;
+      }
+      h1 = Math.imul(a ^ 0x1f, 0x01000193);
+      b = Math.imul(b ^ 0x1f, 0x5bd1e995);
+      h2 = b ^ (b >>> 15);
     },
     get hi() {
       return h1 >>> 0;

@@ -28,6 +28,7 @@ function grown<T extends Float64Array | Uint32Array | Int8Array | Uint8Array>(a:
 
 export function createGroupTable(calls: readonly AggregateCall[]): GroupTable {
   const n = calls.length;
+  // Arrays for groups 0..started.length-1, all grown together.
   let counts = new Uint32Array(16 * n);
   let sums = new Float64Array(16 * n);
   // Largest decimal scale seen per sum (-1: some addend was not a short decimal), so the total is exact.
@@ -37,10 +38,12 @@ export function createGroupTable(calls: readonly AggregateCall[]): GroupTable {
   return {
     add(group, row) {
       const base = group * n;
-      counts = grown(counts, base + n, (k) => new Uint32Array(k));
-      sums = grown(sums, base + n, (k) => new Float64Array(k));
-      scales = grown(scales, base + n, (k) => new Int8Array(k));
-      started = grown(started, group + 1, (k) => new Uint8Array(k));
+      if (group >= started.length) {
+        counts = grown(counts, base + n, (k) => new Uint32Array(k));
+        sums = grown(sums, base + n, (k) => new Float64Array(k));
+        scales = grown(scales, base + n, (k) => new Int8Array(k));
+        started = grown(started, group + 1, (k) => new Uint8Array(k));
+      }
       const first = started[group] === 0;
       if (first) {
         started[group] = 1;
