@@ -49,7 +49,10 @@ export async function checkFile(plan: Plan, file: string, options: CheckOptions)
     rows,
     contractPath: options.contractPath,
     failOn: options.failOn ?? "error",
-    input: { path: options.reportPath, sha256: summary.sha256, bytes: summary.bytes, rows, format: plan.input.format, encoding: summary.encoding },
+    input: {
+      path: options.reportPath, sha256: summary.sha256, bytes: summary.bytes, rows, format: plan.input.format, encoding: summary.encoding,
+      ...(summary.note === undefined ? {} : { note: summary.note }),
+    },
   });
   return { ok: true, value: profile ? { ...report, profile } : report };
 }

@@ -84,6 +84,8 @@ export interface DeliveryReport {
     readonly rows: number;
     readonly format: string;
     readonly encoding: string;
+    /** How the encoding was decided, when `auto` fell back from UTF-8. */
+    readonly note?: string;
   };
   readonly references: readonly ReferenceUse[];
   readonly verdict: "pass" | "fail";

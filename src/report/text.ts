@@ -28,6 +28,7 @@ function delivery(r: DeliveryReport, colour: boolean | undefined): string {
     `${r.input.path} · contract ${r.contract.name}${r.contract.version ? ` ${r.contract.version}` : ""} (${r.contract.path})`,
     `${r.verdict === "pass" ? paint(colour, "pass", "PASS") : paint(colour, "fail", "FAIL")} · ${plural(r.input.rows, "row")} · ${plural(c.error, "error")}, ${plural(c.warning, "warning")}, ${plural(c.note, "note")} · ${plural(c.rows_failed, "row")} with errors`,
   ];
+  if (r.input.note) head.push(`note: ${r.input.note}`);
   const failed = r.checks.filter((k) => k.failed > 0).sort((a, b) => ORDER[a.level] - ORDER[b.level]);
   const body = failed.flatMap((k) => ["", ...checkBlock(r, k, colour)]);
   const tail = r.truncated ? ["", `(the JSON report lists the first ${n(r.findings.length)} findings; counts above are complete)`] : [];
