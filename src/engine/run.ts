@@ -75,8 +75,10 @@ export async function runPlan(plan: Plan, batches: AsyncIterable<readonly RawRec
   let rows = 0;
 
   const levelOf = (check: number): Level => plan.checks[check]?.level ?? "error";
-  const emit = (check: number, rowNo: number, line: number, f: Omit<Finding, "rule" | "level" | "row" | "line">, level?: Level) => {
-    if (out.fail(check, rowNo, level)) out.keep(check, { rule: plan.checks[check]?.rule ?? "", level: level ?? levelOf(check), row: rowNo, line, ...f });
+  // Counting is exact for every failure; the finding itself (strings and all) is built only when kept.
+  type Parts = Omit<Finding, "rule" | "level" | "row" | "line">;
+  const emit = (check: number, rowNo: number, line: number, make: () => Parts, level?: Level) => {
+    if (out.fail(check, rowNo, level)) out.keep(check, { rule: plan.checks[check]?.rule ?? "", level: level ?? levelOf(check), row: rowNo, line, ...make() });
   };
 
   const checkRecord = (rec: RawRecord, h: HeaderMatch) => {
@@ -84,7 +86,7 @@ export async function runPlan(plan: Plan, batches: AsyncIterable<readonly RawRec
     const line = rec.line;
     const cells = rec.cells;
     if (cells.length !== h.width) {
-      emit(plan.file.width, rowNo, line, { value: String(cells.length), expected: `${h.width} cells`, message: `record has ${cells.length} cells, expected ${h.width}; its cells are not checked` });
+      emit(plan.file.width, rowNo, line, () => ({ value: String(cells.length), expected: `${h.width} cells`, message: `record has ${cells.length} cells, expected ${h.width}; its cells are not checked` }));
       end.skipped(line);
       return;
     }
@@ -125,23 +127,23 @@ export async function runPlan(plan: Plan, batches: AsyncIterable<readonly RawRec
       const raw = raws[i] as string;
       const text = texts[i] as string;
       if (s === 1) {
-        if (col.required) emit(col.requiredCheck, rowNo, line, { column: col.name, value: cellValue(raw, col.sensitive), expected: "a value", message: `${col.name} is blank but required` });
+        if (col.required) emit(col.requiredCheck, rowNo, line, () => ({ column: col.name, value: cellValue(raw, col.sensitive), expected: "a value", message: `${col.name} is blank but required` }));
         continue;
       }
       if (s === 2) {
         // A cell that does not parse is one finding; its other checks, spaces included, are skipped.
-        emit(col.typeCheck, rowNo, line, { column: col.name, value: cellValue(raw, col.sensitive), expected: col.expected, message: `${col.name} ${shownValue(raw, col.sensitive)} is not ${col.expected}` });
+        emit(col.typeCheck, rowNo, line, () => ({ column: col.name, value: cellValue(raw, col.sensitive), expected: col.expected, message: `${col.name} ${shownValue(raw, col.sensitive)} is not ${col.expected}` }));
         continue;
       }
       if (col.spacesCheck >= 0 && raw !== text) {
-        emit(col.spacesCheck, rowNo, line, { column: col.name, value: cellValue(raw, col.sensitive), expected: "no leading or trailing spaces", message: `${col.name} ${shownValue(raw, col.sensitive)} has leading or trailing spaces` });
+        emit(col.spacesCheck, rowNo, line, () => ({ column: col.name, value: cellValue(raw, col.sensitive), expected: "no leading or trailing spaces", message: `${col.name} ${shownValue(raw, col.sensitive)} has leading or trailing spaces` }));
       }
       const checks = col.cellChecks;
       for (let c = 0; c < checks.length; c++) {
         const cc = checks[c] as (typeof checks)[number];
         const m = cc.test(values[i] as Value, text, row);
         if (m === undefined) continue;
-        emit(cc.check, rowNo, line, { column: col.name, value: cellValue(raw, col.sensitive), expected: m.expected, message: `${col.name} ${shownValue(raw, col.sensitive)} ${m.reason}` }, m.level);
+        emit(cc.check, rowNo, line, () => ({ column: col.name, value: cellValue(raw, col.sensitive), expected: m.expected, message: `${col.name} ${shownValue(raw, col.sensitive)} ${m.reason}` }), m.level);
       }
     }
     for (let k = 0; k < plan.keys.length; k++) {
@@ -155,27 +157,32 @@ export async function runPlan(plan: Plan, batches: AsyncIterable<readonly RawRec
       if (!complete) continue; // SQL UNIQUE: a key with a blank part never equals another
       const first = (keySets[k] as SeenSet).firstOrAdd(hasher.hi, hasher.lo, rowNo);
       if (first !== 0) {
-        const shown = key.columns.map((c) => shownValue(raws[c] as string, cols[c]?.sensitive === true)).join(", ");
-        const names = key.columns.map((c) => cols[c]?.name).join(" + ");
-        emit(key.check, rowNo, line, { column: cols[key.columns[0] ?? 0]?.name ?? "", value: shown, expected: "a unique key", message: `${names} (${shown}) repeats the key of row ${first}` });
+        emit(key.check, rowNo, line, () => {
+          const value = key.columns.map((c) => cellValue(raws[c] as string, cols[c]?.sensitive === true)).join(", ");
+          const shown = key.columns.map((c) => shownValue(raws[c] as string, cols[c]?.sensitive === true)).join(", ");
+          const names = key.columns.map((c) => cols[c]?.name).join(" + ");
+          return { column: cols[key.columns[0] ?? 0]?.name ?? "", value, expected: "a unique key", message: `${names} (${shown}) repeats the key of row ${first}` };
+        });
       }
     }
     if (dupSet !== undefined && plan.duplicates !== undefined) {
       hasher.reset();
       for (let c = 0; c < cells.length; c++) hasher.add(cells[c] as string);
       const first = dupSet.firstOrAdd(hasher.hi, hasher.lo, rowNo);
-      if (first !== 0) emit(plan.duplicates, rowNo, line, { expected: "a row seen once", message: `row repeats row ${first} exactly` });
+      if (first !== 0) emit(plan.duplicates, rowNo, line, () => ({ expected: "a row seen once", message: `row repeats row ${first} exactly` }));
     }
     for (const rule of plan.rules) {
       if (rule.when !== undefined && !isTrue(rule.when.evaluate(values))) continue;
       if (!isFalse(rule.assert.evaluate(values))) continue;
-      const shown = rule.assert.columns.map((c) => `${cols[c]?.name}=${state[c] === 1 ? "(blank)" : shownValue(raws[c] as string, cols[c]?.sensitive === true)}${state[c] === 2 ? " (invalid)" : ""}`).join(", ");
-      const first = rule.assert.columns[0];
-      emit(rule.check, rowNo, line, {
+      emit(rule.check, rowNo, line, () => {
+        const shown = rule.assert.columns.map((c) => `${cols[c]?.name}=${state[c] === 1 ? "(blank)" : shownValue(raws[c] as string, cols[c]?.sensitive === true)}${state[c] === 2 ? " (invalid)" : ""}`).join(", ");
+        const first = rule.assert.columns[0];
+        return {
         ...(first === undefined ? {} : { column: cols[first]?.name ?? "" }),
         value: shown,
         expected: rule.assert.source,
         message: `${rule.message ?? `${rule.assert.source} is false`} (${shown})`,
+        };
       });
     }
     end.row(values, texts, raws, state, rowNo, line);
