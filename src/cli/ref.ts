@@ -21,6 +21,9 @@ import {
 import { loadProjectConfig, type ProjectConfig } from "../project/config.js";
 import { breaks, tableImpact, type ImpactReport, type RowChange } from "../registry/impact.js";
 import type { Io } from "./io.js";
+import { REPO_MANIFEST } from "../registry/index.js";
+import { registryLintReports } from "./ref-lint-report.js";
+import { parseReportTargets, writeReports } from "./reports.js";
 import { findRoot, reportPath } from "./root.js";
 
 /** What `ref` needs of the outside world (a subset of the CLI's Io). */
@@ -39,7 +42,7 @@ export interface RefOptions {
 
 export const REF_USAGE = `tablegate ref list [--json]
   tablegate ref show <table> [--page N] [--page-size N]
-  tablegate ref lint [--json]
+  tablegate ref lint [--json] [--report <format>=<path>]...
   tablegate ref lock
   tablegate ref diff <table> [--from <git-rev>] [--json]
   tablegate ref impact <table> [--data <glob>]... [--contract <c>] [--from <git-rev>] [--max-findings N] [--json]`;
@@ -58,6 +61,7 @@ interface Values {
   readonly "max-findings"?: string;
   readonly page?: string;
   readonly "page-size"?: string;
+  readonly report?: readonly string[];
 }
 
 interface Ctx {
@@ -125,7 +129,13 @@ const show: Sub = async (positionals, values, ctx) => {
 };
 
 const lint: Sub = async (_p, values, ctx) => {
-  const report = (status: number, tables: number, found: readonly (Problem & { table?: string; kind?: string })[]): number => {
+  const targets = parseReportTargets(values.report ?? []);
+  if (!targets.ok) return bad(ctx.io, targets.message);
+  const report = async (status: number, tables: number, found: readonly (Problem & { table?: string; kind?: string })[]): Promise<number> => {
+    if (targets.value.length > 0) {
+      const written = await writeReports(await registryLintReports(ctx.root, REPO_MANIFEST, found), targets.value, { ...ctx.io, env: {} }, ctx.root);
+      return written.ok ? status : problems(ctx.io, written.problems);
+    }
     if (!values.json) return found.length > 0 ? problems(ctx.io, found, status) : status;
     ctx.io.stdout(JSON.stringify({ ok: found.length === 0, tables, problems: found }, null, 2) + "\n");
     return status;
@@ -136,7 +146,7 @@ const lint: Sub = async (_p, values, ctx) => {
   if (!lock.ok) return report(FAIL, reg.value.tables().length, lock.problems);
   const issues = compareLock(lock.value, reg.value);
   if (issues.length > 0) return report(FAIL, reg.value.tables().length, issues.map((i) => ({ ...lockIssueProblem(i), table: i.table, kind: i.kind })));
-  if (values.json) return report(PASS, reg.value.tables().length, []);
+  if (values.json || targets.value.length > 0) return report(PASS, reg.value.tables().length, []);
   ctx.io.stdout(`registry ok: ${reg.value.tables().length} tables, lock matches\n`);
   return PASS;
 };
@@ -323,6 +333,7 @@ export async function runRef(args: readonly string[], io: RefIo, options: RefOpt
         data: { type: "string", multiple: true },
         contract: { type: "string" },
         "max-findings": { type: "string" },
+        report: { type: "string", multiple: true },
       },
     });
   } catch (e) {

@@ -57,3 +57,19 @@ describe("tablegate ref lint --json", () => {
     expect(missing.err).toContain("tablegate.yaml:3");
   });
 });
+
+describe("tablegate ref lint --report", () => {
+  it("writes registry problems in check's report formats: JSON valid per the report schema, rule registry.table on the CSV line", async () => {
+    const root = await tempRepo({ ".git/HEAD": "", "reference/registry.yaml": COLORS_YAML, "reference/colors.csv": "code,name,rank\nRED,Red,1\nRED,Red,2\n" });
+    const r = await tg(root, "ref", "lint", "--report", "json=-", "--report", "junit=lint.xml");
+    expect(r.code).toBe(1);
+    const report = JSON.parse(r.out) as { verdict: string; input: { path: string }; findings: { rule: string; line?: number }[] };
+    expect(report.verdict).toBe("fail");
+    expect(report.input.path).toBe("reference/colors.csv");
+    expect(report.findings.map((f) => [f.rule, f.line])).toEqual([["registry.table", 3]]);
+    const { Ajv2020 } = await import("ajv/dist/2020.js");
+    const { readSchema } = await import("../../src/schema/locate.js");
+    const validate = new Ajv2020({ strict: false, allErrors: true }).compile(readSchema("report.schema.json"));
+    expect(validate(report)).toBe(true);
+  });
+});
