@@ -2,7 +2,7 @@ import type { ColumnSpec } from "../contract/types.js";
 import type { SpecError } from "../contract/spec-error.js";
 import { compareValues, formatValue, parseBound } from "../types/index.js";
 import type { Value } from "../values.js";
-import { miss, type CheckDefinition, type CompiledCheck } from "./definition.js";
+import { miss, type CheckContext, type CheckDefinition, type CompiledCheck } from "./definition.js";
 import { compareWritten } from "./exact-decimal.js";
 
 const ORDERED = ["integer", "decimal", "date", "timestamp", "time"] as const;
@@ -17,17 +17,18 @@ function bound(spec: ColumnSpec, key: "min" | "max"): Value | SpecError[] {
   return parsed;
 }
 
-function compileBound(key: "min" | "max", spec: ColumnSpec, column: string): CompiledCheck | SpecError[] {
+function compileBound(key: "min" | "max", spec: ColumnSpec, ctx: CheckContext): CompiledCheck | SpecError[] {
+  const column = ctx.column;
   const limit = bound(spec, key);
   if (Array.isArray(limit)) return limit;
-  const shown = formatValue(limit as Value);
+  const written = typeof limit === "number" ? (ctx.writtenNumber([key]) ?? String(limit)) : undefined;
+  const shown = written ?? formatValue(limit as Value);
   // Numbers compare as doubles; a tie is settled on the digits as written (0.3000000000000000001 > 0.3).
   // Decimals of at most 15 significant digits map to distinct doubles, so short ties are real ties.
-  const numeric = typeof limit === "number";
-  const shortBound = numeric && String(limit).replace(/[-.]/g, "").length <= 15;
+  const shortBound = written !== undefined && /^[-+]?[\d.]{1,16}$/.test(written) && written.replace(/[-+.]/g, "").length <= 15;
   const order = (v: Value, text: string): number => {
     const c = compareValues(v, limit as Value);
-    return c === 0 && numeric && !(shortBound && text.length <= 15) ? compareWritten(text, limit as number, spec) : c;
+    return c === 0 && written !== undefined && !(shortBound && text.length <= 15) ? compareWritten(text, written, spec) : c;
   };
   if (key === "min") {
     const m = miss(`>= ${shown}`, `is below the minimum ${shown}`);
@@ -38,7 +39,7 @@ function compileBound(key: "min" | "max", spec: ColumnSpec, column: string): Com
 }
 
 /** `min`: the smallest allowed value, inclusive. */
-export const min: CheckDefinition = { name: "min", key: "min", types: ORDERED, compile: (spec, ctx) => compileBound("min", spec, ctx.column) };
+export const min: CheckDefinition = { name: "min", key: "min", types: ORDERED, compile: (spec, ctx) => compileBound("min", spec, ctx) };
 
 /** `max`: the largest allowed value, inclusive. */
-export const max: CheckDefinition = { name: "max", key: "max", types: ORDERED, compile: (spec, ctx) => compileBound("max", spec, ctx.column) };
+export const max: CheckDefinition = { name: "max", key: "max", types: ORDERED, compile: (spec, ctx) => compileBound("max", spec, ctx) };

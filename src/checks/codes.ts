@@ -18,7 +18,8 @@ export const codes: CheckDefinition = {
     let allowed: ReadonlySet<string>;
     let where: string;
     if (Array.isArray(c)) {
-      allowed = new Set(c.map(String));
+      // A number keeps the digits the contract wrote: `2.50` allows the cell "2.50".
+      allowed = new Set(c.map((v, i) => (typeof v === "number" ? (ctx.writtenNumber(["codes", i]) ?? String(v)) : v)));
       where = listing([...allowed]);
     } else {
       const { table, column } = c as { table: string; column: string };

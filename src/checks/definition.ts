@@ -31,6 +31,11 @@ export interface CheckContext {
   codeSet(table: string, column: string): ReadonlySet<string> | { readonly field: "table" | "column"; readonly message: string };
   /** Today, as days since 1970-01-01 (UTC), fixed for the whole run. */
   readonly today: number;
+  /**
+   * A number option exactly as the contract wrote it (`path` below the column), when YAML's reading
+   * as a double lost something (`2.50`, `9007199254740993`); undefined otherwise.
+   */
+  writtenNumber(path: readonly (string | number)[]): string | undefined;
 }
 
 export interface CompiledCheck {

@@ -20,6 +20,14 @@ function exactOf(text: string, spec: ColumnSpec): Exact | undefined {
   if (spec.thousands === " ") t = t.replace(/[\u00a0\u202f]/g, "");
   const negative = t.startsWith("-");
   if (negative || t.startsWith("+")) t = t.slice(1);
+  // Exponent notation only where the contract writes a number (1e21, 1.5e-21); cells never use it.
+  const e = spec.type === "decimal" && spec.decimal_mark === undefined && spec.thousands === undefined ? t.search(/[eE]/) : -1;
+  if (e >= 0) {
+    const power = Number(t.slice(e + 1));
+    if (!Number.isInteger(power)) return undefined;
+    exponent += power;
+    t = t.slice(0, e);
+  }
   const at = t.indexOf(mark);
   const whole = at < 0 ? t : t.slice(0, at);
   const frac = at < 0 ? "" : t.slice(at + 1);
@@ -40,11 +48,10 @@ function compareExact(a: Exact, b: Exact): number {
 
 /**
  * Settle a tie between two numbers that compared equal as doubles: the cell as written against the
- * bound (a double's shortest text is exact for the bound as the contract wrote it). Rounding to a
- * double never reverses an order, so only ties need this.
+ * bound as the contract wrote it. Rounding to a double never reverses an order, so only ties need this.
  */
-export function compareWritten(text: string, bound: number, spec: ColumnSpec): number {
+export function compareWritten(text: string, bound: string, spec: ColumnSpec): number {
   const a = exactOf(text, spec);
-  const b = exactOf(String(bound).includes("e") ? bound.toFixed(20) : String(bound), { type: "decimal" });
+  const b = exactOf(bound, { type: "decimal" });
   return a && b ? compareExact(a, b) : 0;
 }

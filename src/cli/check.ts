@@ -98,7 +98,7 @@ export async function check(argv: readonly string[], io: Io): Promise<number> {
     if (!r.ok) return unusable(io, r.problems.map((p) => ({ ...p, file: p.file === path ? job.file : p.file })));
     reports.push(r.value);
   }
-  const written = await writeReports(reports, targets.value, io, root, unclaimed);
+  const written = await writeReports(reports, targets.value, io, root, unclaimed, values["require-contract"] === true);
   if (!written.ok) return unusable(io, written.problems);
   const failed = reports.some((r) => r.verdict === "fail") || (values["require-contract"] === true && unclaimed.length > 0);
   return failed ? EXIT.fail : EXIT.pass;

@@ -1,4 +1,4 @@
-import { appendFile, writeFile } from "node:fs/promises";
+import { appendFile, readFile, writeFile } from "node:fs/promises";
 import { isAbsolute, join } from "node:path";
 import type { Result } from "../problem.js";
 import type { DeliveryReport } from "../report/model.js";
@@ -29,16 +29,19 @@ export function parseReportTargets(values: readonly string[]): { ok: true; value
 }
 
 /** Write every requested report; text goes to stdout unless another report already does. */
-export async function writeReports(reports: readonly DeliveryReport[], targets: readonly ReportTarget[], io: Io, root: string, unclaimed: readonly string[] = []): Promise<Result<void>> {
+export async function writeReports(reports: readonly DeliveryReport[], targets: readonly ReportTarget[], io: Io, root: string, unclaimed: readonly string[] = [], unclaimedFails = false): Promise<Result<void>> {
   // In a GitHub Actions job with no report named, annotate the files as well as printing text.
   const named = targets.length > 0 || io.env.GITHUB_ACTIONS !== "true" ? targets : [{ format: "github" as const, path: "-" }];
   const all = named.some((t) => t.path === "-" && t.format !== "github") ? named : [{ format: "text" as const, path: "-" }, ...named];
-  const ctx = { root, toolVersion: TOOL_VERSION, unclaimed };
+  const ctx = { root, toolVersion: TOOL_VERSION, unclaimed, unclaimedFails };
   const terminal = { ...ctx, colour: wantColour(io.env, io.stdoutIsTty === true) };
   const summaryFile = io.env.GITHUB_STEP_SUMMARY;
   if (all.some((t) => t.format === "github") && summaryFile) {
     try {
-      await appendFile(summaryFile, githubSummary(reports, ctx));
+      // Start on a line of its own, whatever an earlier step left at the end of the file.
+      const before = await readFile(summaryFile).catch(() => Buffer.alloc(0));
+      const gap = before.length > 0 && before[before.length - 1] !== 0x0a ? "\n" : "";
+      await appendFile(summaryFile, gap + githubSummary(reports, ctx));
     } catch (e) {
       return { ok: false, problems: [{ file: summaryFile, message: `cannot append the step summary: ${(e as NodeJS.ErrnoException).code ?? (e as Error).message}` }] };
     }

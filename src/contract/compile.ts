@@ -8,6 +8,7 @@ import type { CellCheckPlan, CheckMeta, ColumnPlan, FileChecks, GroupPlan, KeyPl
 import type { SpecError } from "./spec-error.js";
 import type { ColumnSpec, ColumnType, ContractSpec, Level } from "./types.js";
 import { problemAt, type YamlPath, type YamlSource } from "./yaml-source.js";
+import { isScalar } from "yaml";
 
 /** Options each type's parser reads, besides the checks. */
 const PARSER_OPTIONS: Readonly<Record<ColumnType, readonly string[]>> = {
@@ -29,6 +30,16 @@ export interface CompileInput {
   readonly registry: Registry;
   /** Fixed clock for `not_future`, days since 1970-01-01. */
   readonly today?: number;
+}
+
+const DECIMAL_TEXT = /^[+-]?(\d+\.?\d*|\.\d+)([eE][+-]?\d+)?$/;
+
+/** The source text of a number scalar when it differs from the double YAML read (see CheckContext). */
+function writtenNumber(src: YamlSource, path: YamlPath): string | undefined {
+  const node = src.doc.getIn(path, true);
+  if (!isScalar(node) || typeof node.value !== "number" || !node.range) return undefined;
+  const text = src.text.slice(node.range[0], node.range[1]).trim();
+  return DECIMAL_TEXT.test(text) && text !== String(node.value) ? text : undefined;
 }
 
 /** Compile a schema-valid contract into a plan, or every problem found, each at file:line:col. */
@@ -102,6 +113,7 @@ export function compilePlan({ src, spec, sha256, registry, today = todayDays() }
       columnIndex,
       columnNames: names,
       today,
+      writtenNumber: (path) => writtenNumber(src, [...base, ...path]),
       codeSet: (table, column) => {
         const t = registry.table(table);
         if (!t) return { field: "table", message: `unknown reference table "${table}"${suggestion(table, registry.tables().map((x) => x.name))}; tables: ${registry.tables().map((x) => x.name).join(", ")}` };

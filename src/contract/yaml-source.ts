@@ -36,8 +36,8 @@ function nodeAt(src: YamlSource, path: YamlPath): { node: Node | null; complete:
       const pair = node.items.find((p) => isScalar(p.key) && String(p.key.value) === String(key));
       if (!pair || !pair.value) return { node: node as Node, complete: false };
       node = pair.value;
-    } else if (isSeq(node) && typeof key === "number" && node.items[key]) {
-      node = node.items[key];
+    } else if (isSeq(node) && /^\d+$/.test(String(key)) && node.items[Number(key)]) {
+      node = node.items[Number(key)];
     } else {
       return { node: (node as Node | null) ?? null, complete: false };
     }

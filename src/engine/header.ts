@@ -48,11 +48,12 @@ export function matchHeader(plan: Plan, cells: readonly string[], line: number):
     const near = suggestion(name, plan.columns.filter((c) => !byName.has(c.name)).map((c) => c.name));
     at(plan.file.headerUnexpected, { column: name, value: name, expected: "a declared column", message: `header has undeclared column ${JSON.stringify(name)}${near}` });
   }
+  // Order concerns the declared columns that are present, relative to each other: a missing, extra
+  // or repeated name is its own finding and does not make the others "out of order".
   if (policy === "exact" || policy === "ordered") {
     const present = plan.columns.filter((c) => (positions[c.index] ?? -1) >= 0);
     const inOrder = present.every((c, i) => i === 0 || (positions[c.index] ?? 0) > (positions[present[i - 1]?.index ?? 0] ?? 0));
-    const exactPlaces = policy !== "exact" || present.every((c) => positions[c.index] === c.index);
-    if (!inOrder || (!exactPlaces && extras.length === 0)) {
+    if (!inOrder) {
       const found = present.slice().sort((a, b) => (positions[a.index] ?? 0) - (positions[b.index] ?? 0)).map((c) => c.name);
       at(plan.file.headerOrder, { value: found.join(","), expected: present.map((c) => c.name).join(","), message: `header lists the columns out of order: ${found.join(", ")}; expected ${present.map((c) => c.name).join(", ")}` });
     }

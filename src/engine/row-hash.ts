@@ -1,7 +1,7 @@
 /**
  * A 64-bit hash of a sequence of strings, as two 32-bit lanes (FNV-1a over pairs of UTF-16 units,
- * and a multiply-add lane), fed cell by cell so no joined string is built. A separator mixed in after
- * each cell keeps ["ab", "c"] apart from ["a", "bc"].
+ * and a multiply-add lane), fed cell by cell so no joined string is built. Each cell's length is mixed
+ * in after it, which keeps ["ab", "c"] apart from ["a", "bc"].
  */
 export interface RowHasher {
   reset(): void;
@@ -36,9 +36,10 @@ export function createRowHasher(): RowHasher {
         a = Math.imul(a ^ c, 0x01000193);
         b = Math.imul(b + c, 0x2c1b3c6d);
       }
-      h1 = Math.imul(a ^ 0x1f, 0x01000193);
+      // The cell's length ends it: separates cells, and "x" from "x\u0000" (same units once paired).
+      h1 = Math.imul(a ^ (n + 0x1f), 0x01000193);
       b ^= b >>> 15;
-      h2 = Math.imul(b + 0x1f, 0x2c1b3c6d);
+      h2 = Math.imul(b + n + 0x1f, 0x2c1b3c6d);
     },
     get hi() {
       return h1 >>> 0;

@@ -12,7 +12,9 @@ export interface SeenSet {
 }
 
 export function createSeenSet(initialSlots = 1 << 16): SeenSet {
-  let slots = initialSlots;
+  // Probing masks with slots - 1, so the slot count must be a power of two.
+  let slots = 4;
+  while (slots < initialSlots) slots *= 2;
   let table = new Uint32Array(slots * 3);
   let size = 0;
 

@@ -5,9 +5,12 @@ export function cellValue(raw: string, sensitive: boolean): string {
   return sensitive ? mask(raw) : raw;
 }
 
-/** A value inside a sentence: quoted when blank or padded with spaces, so the reader sees them. */
+// C0 controls and DEL: a line break inside a value must never start a new line in a log.
+const CONTROL = /[\u0000-\u001f\u007f]/;
+
+/** A value inside a sentence: quoted (JSON escapes) when blank, padded or holding control characters. */
 export function quoted(text: string): string {
-  return text === "" || text.trim() !== text ? JSON.stringify(text) : text;
+  return text === "" || text.trim() !== text || CONTROL.test(text) ? JSON.stringify(text) : text;
 }
 
 /** A cell inside a sentence: masked when sensitive, quoted when blank or padded. */

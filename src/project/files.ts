@@ -26,22 +26,24 @@ export async function routedFiles(root: string, config: ProjectConfig): Promise<
 export const DATA_FILE = /\.(csv|tsv|txt|ndjson|jsonl|xlsx)(\.gz)?$/i;
 
 /**
- * Files changed since a git revision (committed or not, deletions left out), root-relative. The
- * revision goes to git as one argument, never through a shell.
+ * Files changed since a git revision (committed, staged, modified or new and untracked; deletions
+ * left out), root-relative. The revision goes to git as one argument, never through a shell.
  */
-export function changedSince(root: string, rev: string): Promise<Result<string[]>> {
+export async function changedSince(root: string, rev: string): Promise<Result<string[]>> {
+  if (rev.startsWith("-")) return { ok: false, problems: [{ file: "--changed-since", message: `not a git revision: ${rev}` }] };
+  const changed = await git(root, ["diff", "--name-only", "--relative", "--no-renames", "--diff-filter=d", "-z", rev, "--"]);
+  if (!changed.ok) return { ok: false, problems: [{ file: "--changed-since", message: `git could not list changes since ${rev}: ${changed.error}` }] };
+  // New files not yet added to git are changes too (a local run before committing).
+  const untracked = await git(root, ["ls-files", "--others", "--exclude-standard", "-z", "--", "."]);
+  const all = new Set([...changed.out.split("\0"), ...(untracked.ok ? untracked.out.split("\0") : [])].filter(Boolean));
+  return { ok: true, value: [...all].sort() };
+}
+
+function git(cwd: string, args: string[]): Promise<{ ok: true; out: string } | { ok: false; error: string }> {
   return new Promise((resolve) => {
-    if (rev.startsWith("-")) {
-      resolve({ ok: false, problems: [{ file: "--changed-since", message: `not a git revision: ${rev}` }] });
-      return;
-    }
-    execFile("git", ["diff", "--name-only", "--relative", "--no-renames", "--diff-filter=d", "-z", rev, "--"], { cwd: root, maxBuffer: 64 << 20 }, (err, stdout, stderr) => {
-      if (err) {
-        const why = String(stderr).split("\n")[0] || err.message;
-        resolve({ ok: false, problems: [{ file: "--changed-since", message: `git could not list changes since ${rev}: ${why}` }] });
-        return;
-      }
-      resolve({ ok: true, value: String(stdout).split("\0").filter(Boolean).sort() });
+    execFile("git", args, { cwd, maxBuffer: 64 << 20 }, (err, stdout, stderr) => {
+      if (err) resolve({ ok: false, error: String(stderr).split("\n")[0] || err.message });
+      else resolve({ ok: true, out: String(stdout) });
     });
   });
 }

@@ -34,7 +34,7 @@ export const json: Writer = (reports, ctx) => {
   return JSON.stringify({
     report: 1,
     tool: { name: "tablegate", version: ctx.toolVersion },
-    verdict: reports.some((r) => r.verdict === "fail") ? "fail" : "pass",
+    verdict: reports.some((r) => r.verdict === "fail") || (ctx.unclaimedFails === true && unclaimed.length > 0) ? "fail" : "pass",
     counts: { error: sum("error"), warning: sum("warning"), note: sum("note"), rows_failed: sum("rows_failed") },
     deliveries: reports.map(deliveryJson),
     ...(unclaimed.length === 0 ? {} : { unclaimed }),

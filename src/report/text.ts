@@ -2,6 +2,9 @@ import type { CheckTally, DeliveryReport, Finding, Level } from "./model.js";
 import { paint } from "./colour.js";
 import type { Writer, WriterContext } from "./writer.js";
 
+/** Every line of the report is one line: control characters from a delivery are shown escaped. */
+const oneLine = (s: string): string => s.replace(/[\u0000-\u001f\u007f]/g, (c) => (c === "\n" ? "\\n" : c === "\r" ? "\\r" : c === "\t" ? "\\t" : `\\u${c.charCodeAt(0).toString(16).padStart(4, "0")}`));
+
 const ORDER: Readonly<Record<Level, number>> = { error: 0, warning: 1, note: 2 };
 const n = (x: number) => x.toLocaleString("en-US");
 const plural = (x: number, word: string) => `${n(x)} ${word}${x === 1 ? "" : "s"}`;
@@ -14,9 +17,9 @@ function where(f: Finding): string {
 function checkBlock(r: DeliveryReport, c: CheckTally, colour: boolean | undefined): string[] {
   const src = c.source ? `${r.contract.path}:${c.source.line}` : "built in";
   const allowance = c.allow === undefined ? "" : ` · ${(100 * (c.share ?? 0)).toFixed(2)}% of rows, ${c.within_allowance ? "within" : "over"} the ${(100 * c.allow).toFixed(2)}% allowed`;
-  const lines = [`${paint(colour, c.level, c.level.toUpperCase().padEnd(7))} ${c.rule} · ${plural(c.failed, "finding")}${allowance}`, `        ${c.description} (${src})`];
+  const lines = [`${paint(colour, c.level, c.level.toUpperCase().padEnd(7))} ${c.rule} · ${plural(c.failed, "finding")}${allowance}`, oneLine(`        ${c.description} (${src})`)];
   const shown = c.examples ?? r.findings.filter((f) => f.rule === c.rule).slice(0, 5);
-  for (const f of shown) lines.push(`        ${where(f).padEnd(22)} ${f.message}${f.value !== undefined && !f.message.includes(f.value) ? ` (value ${f.value})` : ""}`);
+  for (const f of shown) lines.push(oneLine(`        ${where(f).padEnd(22)} ${f.message}${f.value !== undefined && !f.message.includes(f.value) ? ` (value ${f.value})` : ""}`));
   const more = c.failed - shown.length;
   if (more > 0) lines.push(`        ... and ${plural(more, "more finding")} of this rule`);
   return lines;
@@ -25,10 +28,10 @@ function checkBlock(r: DeliveryReport, c: CheckTally, colour: boolean | undefine
 function delivery(r: DeliveryReport, colour: boolean | undefined): string {
   const c = r.counts;
   const head = [
-    `${r.input.path} · contract ${r.contract.name}${r.contract.version ? ` ${r.contract.version}` : ""} (${r.contract.path})`,
+    oneLine(`${r.input.path} · contract ${r.contract.name}${r.contract.version ? ` ${r.contract.version}` : ""} (${r.contract.path})`),
     `${r.verdict === "pass" ? paint(colour, "pass", "PASS") : paint(colour, "fail", "FAIL")} · ${plural(r.input.rows, "row")} · ${plural(c.error, "error")}, ${plural(c.warning, "warning")}, ${plural(c.note, "note")} · ${plural(c.rows_failed, "row")} with errors`,
   ];
-  if (r.input.note) head.push(`note: ${r.input.note}`);
+  if (r.input.note) head.push(oneLine(`note: ${r.input.note}`));
   const failed = r.checks.filter((k) => k.failed > 0).sort((a, b) => ORDER[a.level] - ORDER[b.level]);
   const body = failed.flatMap((k) => ["", ...checkBlock(r, k, colour)]);
   const tail = r.truncated ? ["", `(the JSON report lists the first ${n(r.findings.length)} findings; counts above are complete)`] : [];
@@ -37,6 +40,6 @@ function delivery(r: DeliveryReport, colour: boolean | undefined): string {
 
 /** The report for people reading a terminal or a CI log: per delivery, failed checks by severity, with examples. */
 export const text: Writer = (reports, ctx: WriterContext) => {
-  const unclaimed = (ctx.unclaimed ?? []).map((f) => `NOTE    ${f}: no contract in tablegate.yaml claims this file; it was not checked`);
+  const unclaimed = (ctx.unclaimed ?? []).map((f) => oneLine(`${ctx.unclaimedFails ? "ERROR  " : "NOTE   "} ${f}: no contract in tablegate.yaml claims this file; it was not checked`));
   return [...reports.map((r) => delivery(r, ctx.colour)), ...(unclaimed.length ? [unclaimed.join("\n")] : [])].join("\n\n") + "\n";
 };

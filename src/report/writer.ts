@@ -8,6 +8,8 @@ export interface WriterContext {
   readonly toolVersion: string;
   /** Files the run was asked about that no contract claims (root-relative). */
   readonly unclaimed?: readonly string[];
+  /** Whether unclaimed files fail the run (`--require-contract`). */
+  readonly unclaimedFails?: boolean;
   /** ANSI colour in text output (terminals only; see report/colour.ts). */
   readonly colour?: boolean;
 }

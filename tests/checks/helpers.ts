@@ -13,6 +13,7 @@ export function fakeContext(over: Partial<CheckContext> = {}): CheckContext {
     columnNames: ["c"],
     codeSet: (table) => ({ field: "table", message: `no table ${table}` }),
     today: Date.UTC(2024, 5, 15) / 86_400_000,
+    writtenNumber: () => undefined,
     ...over,
   };
 }

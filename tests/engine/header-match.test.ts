@@ -67,13 +67,13 @@ describe("exact", () => {
 
   // Bug: with a column missing from the middle, the rest no longer sit at their declared index, so the
   // "exact places" test fails and a header.order finding is added whose found and expected lists are equal.
-  it.fails("a missing middle column is not also an order problem", () => {
+  it("a missing middle column is not also an order problem", () => {
     expect(summary(plan, ["sku", "qty"]).map(([rule]) => rule)).toEqual(["header.missing"]);
   });
 
   // Bug: the same for a repeated name: the later columns shift right, and header.order is added beside
   // header.duplicate although the declared columns appear in order.
-  it.fails("a repeated name is a duplicate, not also an order problem", () => {
+  it("a repeated name is a duplicate, not also an order problem", () => {
     expect(summary(plan, ["sku", "sku", "name", "qty"]).map(([rule]) => rule)).toEqual(["header.duplicate"]);
   });
 
