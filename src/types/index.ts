@@ -1,4 +1,5 @@
 import type { ColumnSpec } from "../contract/types.js";
+import type { Value } from "../values.js";
 import { compileBoolean } from "./boolean.js";
 import { compileDate } from "./date.js";
 import { compileDecimal } from "./decimal.js";
@@ -20,6 +21,28 @@ export { decimalScale } from "./decimal.js";
  * the second of its formats, or ['thousands'].
  */
 export function compileType(spec: ColumnSpec): CompiledType {
+  const compiled = compileBare(spec);
+  if (!compiled.ok || spec.type === "text") return compiled;
+  return { ok: true, parser: { ...compiled.parser, parse: rememberLast(compiled.parser.parse) } };
+}
+
+/**
+ * Deliveries repeat themselves from row to row (the same date, the same discount), so a column's
+ * parser hands back its previous answer for the same text: no parsing, and no new value object.
+ * Values are immutable, so sharing one is safe.
+ */
+function rememberLast(parse: (text: string) => Value | undefined): (text: string) => Value | undefined {
+  let lastText: string | undefined;
+  let lastValue: Value | undefined;
+  return (text) => {
+    if (text === lastText) return lastValue;
+    lastValue = parse(text);
+    lastText = text;
+    return lastValue;
+  };
+}
+
+function compileBare(spec: ColumnSpec): CompiledType {
   switch (spec.type) {
     case "text":
       return { ok: true, parser: textParser };
