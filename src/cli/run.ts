@@ -1,4 +1,5 @@
 import { check, CHECK_USAGE } from "./check.js";
+import { fix, FIX_USAGE } from "./fix.js";
 import { EXIT, type Io } from "./io.js";
 import { lint } from "./lint.js";
 import { ref, REF_USAGE } from "./ref.js";
@@ -8,12 +9,13 @@ export type { Io } from "./io.js";
 
 type Command = (argv: readonly string[], io: Io) => Promise<number>;
 
-const COMMANDS: Readonly<Record<string, Command>> = { check, lint, ref, schema };
+const COMMANDS: Readonly<Record<string, Command>> = { check, fix, lint, ref, schema };
 
 const USAGE = `usage:
   ${CHECK_USAGE}
   tablegate lint <contract...>
   ${REF_USAGE}
+  ${FIX_USAGE}
   tablegate schema [contract|report]
 `;
 

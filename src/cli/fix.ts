@@ -1,0 +1,65 @@
+import { isAbsolute, join, resolve } from "node:path";
+import { parseArgs } from "node:util";
+import { loadContract } from "../contract/load.js";
+import { fixFile } from "../fix/fix-file.js";
+import { fixSummary } from "../fix/summary.js";
+import { checkTargets, type FixTargets } from "../fix/targets.js";
+import { contractFor, loadProjectConfig } from "../project/config.js";
+import { loadRegistry, verifyLock } from "../registry/index.js";
+import { EXIT, type Io } from "./io.js";
+import { badArgument, unusable } from "./problems.js";
+import { findRoot, reportPath } from "./root.js";
+
+export const FIX_USAGE = "tablegate fix <file> --contract <c> --out <clean> --rejects <rejects> --log <changes.ndjson>";
+
+const OPTIONS = {
+  contract: { type: "string", short: "c" },
+  out: { type: "string" },
+  rejects: { type: "string" },
+  log: { type: "string" },
+} as const;
+
+/**
+ * `tablegate fix`: repair a delivery mechanically and split it into clean and rejected records, with
+ * a log of every change; 0 every record is clean and the clean file meets the contract, 1 some record
+ * was rejected or the clean file still fails a whole-file check, 2 it could not run.
+ */
+export async function fix(argv: readonly string[], io: Io): Promise<number> {
+  let parsed;
+  try {
+    parsed = parseArgs({ args: [...argv], allowPositionals: true, options: OPTIONS });
+  } catch (e) {
+    return badArgument(io, `${(e as Error).message}\nusage: ${FIX_USAGE}`);
+  }
+  const { values, positionals } = parsed;
+  if (positionals.length !== 1) return badArgument(io, `fix takes exactly one delivery file, got ${positionals.length}\nusage: ${FIX_USAGE}`);
+  for (const key of ["out", "rejects", "log"] as const) {
+    if (values[key] === undefined || values[key] === "") return badArgument(io, `missing option --${key}\nusage: ${FIX_USAGE}`);
+  }
+  const abs = (p: string) => (isAbsolute(p) ? p : join(io.cwd, p));
+  const input = abs(positionals[0] as string);
+  const targets: FixTargets = { out: abs(values.out as string), rejects: abs(values.rejects as string), log: abs(values.log as string) };
+  const shown: FixTargets = { out: values.out as string, rejects: values.rejects as string, log: values.log as string };
+  const checked = await checkTargets(input, targets, { out: "--out", rejects: "--rejects", log: "--log" });
+  if (!checked.ok) return unusable(io, checked.problems);
+
+  const root = findRoot(io.cwd);
+  const config = await loadProjectConfig(root);
+  if (!config.ok) return unusable(io, config.problems);
+  const inputLabel = reportPath(root, input);
+  const contract = values.contract === undefined ? contractFor(config.value, inputLabel) : reportPath(root, abs(values.contract));
+  if (contract === undefined) {
+    return badArgument(io, `no --contract given and no tablegate.yaml entry claims ${inputLabel}\nusage: ${FIX_USAGE}`);
+  }
+  const registry = await loadRegistry(root, config.value.registries);
+  if (!registry.ok) return unusable(io, registry.problems);
+  const loaded = await loadContract(resolve(root, contract), { registry: registry.value, label: contract });
+  if (!loaded.ok) return unusable(io, loaded.problems);
+  const lock = await verifyLock(root, registry.value, loaded.value.references.map((r) => r.table));
+  if (!lock.ok) return unusable(io, lock.problems);
+
+  const r = await fixFile(loaded.value, input, targets, { input: inputLabel, contract, out: shown.out });
+  if (!r.ok) return unusable(io, r.problems.map((p) => ({ ...p, file: p.file === input ? inputLabel : p.file })));
+  io.stderr(fixSummary(r.value, inputLabel, contract, shown));
+  return r.value.rejectedRows > 0 || r.value.cleanVerdict === "fail" ? EXIT.fail : EXIT.pass;
+}
