@@ -1,5 +1,6 @@
 import { check, CHECK_USAGE } from "./check.js";
 import { fix, FIX_USAGE } from "./fix.js";
+import { infer, INFER_USAGE } from "./infer.js";
 import { EXIT, type Io } from "./io.js";
 import { lint } from "./lint.js";
 import { ref, REF_USAGE } from "./ref.js";
@@ -9,7 +10,7 @@ export type { Io } from "./io.js";
 
 type Command = (argv: readonly string[], io: Io) => Promise<number>;
 
-const COMMANDS: Readonly<Record<string, Command>> = { check, fix, lint, ref, schema };
+const COMMANDS: Readonly<Record<string, Command>> = { check, fix, lint, ref, schema, infer };
 
 const USAGE = `usage:
   ${CHECK_USAGE}
@@ -17,6 +18,7 @@ const USAGE = `usage:
   ${REF_USAGE}
   ${FIX_USAGE}
   tablegate schema [contract|report]
+  ${INFER_USAGE}
 `;
 
 /**
