@@ -31,10 +31,11 @@ export interface ColumnSummary {
   readonly scaleHigh: readonly number[];
   /** Every value read as a date by some format of DATE_FORMATS. */
   readonly datesFit: boolean;
-  /** Each distinct set of DATE_FORMATS (as bits) that read some value together. */
-  readonly dateMasks: ReadonlySet<number>;
-  readonly dateLow: Value;
-  readonly dateHigh: Value;
+  /**
+   * Each distinct set of DATE_FORMATS (as bits) that read some value together, with the smallest and
+   * largest date each of those formats read from such values (index 2f and 2f+1; null elsewhere).
+   */
+  readonly dateMasks: ReadonlyMap<number, readonly Value[]>;
   /** Distinct trimmed values, complete unless `distinctOverflow`. */
   readonly distinct: ReadonlySet<string>;
   readonly distinctOverflow: boolean;
@@ -62,7 +63,7 @@ export function createColumnObserver(name: string, serialDates: boolean): Column
   const markers = new Array<number>(BLANK_MARKERS.length).fill(0);
   const distinct = new Set<string>();
   const shape = createShapeTracker();
-  const dateMasks = new Set<number>();
+  const dateMasks = new Map<number, Value[]>();
   let cells = 0;
   let empty = 0;
   let padded = 0;
@@ -72,8 +73,7 @@ export function createColumnObserver(name: string, serialDates: boolean): Column
   let maxLength = 0;
   let emails = true;
   let datesFit = true;
-  let dateLow: Value = null;
-  let dateHigh: Value = null;
+  const dateValues = new Array<Value>(DATE_PARSERS.length).fill(null);
 
   const widen = (i: number, v: Value): void => {
     const lo = low[i] as Value;
@@ -128,21 +128,25 @@ export function createColumnObserver(name: string, serialDates: boolean): Column
     }
     if (datesFit) {
       let mask = 0;
-      let first: Value = null;
       for (let f = 0; f < DATE_PARSERS.length; f++) {
-        if (f === SERIAL_FORMAT && !serialDates) continue;
-        const v = (DATE_PARSERS[f] as (typeof DATE_PARSERS)[number]).parse(text);
-        if (v === undefined) continue;
-        mask |= 1 << f;
-        first ??= v;
+        const v = f === SERIAL_FORMAT && !serialDates ? undefined : (DATE_PARSERS[f] as (typeof DATE_PARSERS)[number]).parse(text);
+        dateValues[f] = v ?? null;
+        if (v !== undefined) mask |= 1 << f;
       }
-      if (mask === 0 || first === null) {
+      if (mask === 0) {
         datesFit = false;
         dateMasks.clear();
       } else {
-        dateMasks.add(mask);
-        if (dateLow === null || compareValues(first, dateLow) < 0) dateLow = first;
-        if (dateHigh === null || compareValues(first, dateHigh) > 0) dateHigh = first;
+        let range = dateMasks.get(mask);
+        if (range === undefined) dateMasks.set(mask, (range = new Array<Value>(2 * DATE_PARSERS.length).fill(null)));
+        for (let f = 0; f < DATE_PARSERS.length; f++) {
+          const v = dateValues[f] as Value;
+          if (v === null) continue;
+          const lo = range[2 * f] as Value;
+          const hi = range[2 * f + 1] as Value;
+          if (lo === null || compareValues(v, lo) < 0) range[2 * f] = v;
+          if (hi === null || compareValues(v, hi) > 0) range[2 * f + 1] = v;
+        }
       }
     }
   };
@@ -150,7 +154,7 @@ export function createColumnObserver(name: string, serialDates: boolean): Column
   return {
     observe,
     summary: () => ({
-      name, cells, empty, markers, padded, values, fits, low, high, scaleLow, scaleHigh, datesFit, dateMasks, dateLow, dateHigh,
+      name, cells, empty, markers, padded, values, fits, low, high, scaleLow, scaleHigh, datesFit, dateMasks,
       distinct, distinctOverflow, minLength: values === 0 ? 0 : minLength, maxLength, shape, emails: emails && values > 0,
     }),
   };

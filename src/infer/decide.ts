@@ -86,7 +86,9 @@ export function decideDraft(o: Observation): Draft {
   else if (primary?.outcome === "capped") {
     remarks.push(`${quoteList(keyOf(primary))} ${primary.columns.length > 1 ? "are unique together" : "is unique"} in the first ${KEY_ROW_CAP} rows; rows past that were not compared, so no key is proposed.`);
   }
-  const others = candidates.slice(Math.min(2, o.header.length)).filter((k) => k.outcome === "unique" && allRequired(k) && !(key?.length === 1 && key[0] === keyOf(k)[0]));
+  // Amounts and dates are unique by chance in small files; only identifier-like types are worth a mention.
+  const idLike = (k: KeyCandidate) => k.columns.every((c) => specs[c]?.type === "text" || specs[c]?.type === "integer");
+  const others = candidates.slice(Math.min(2, o.header.length)).filter((k) => k.outcome === "unique" && allRequired(k) && idLike(k) && !(key?.length === 1 && key[0] === keyOf(k)[0]));
   if (o.rows >= 2 && others.length > 0) remarks.push(`Also unique in every row of this file, not proposed as keys: ${quoteList(others.map((k) => keyOf(k)[0] as string))}.`);
 
   let duplicates: Draft["duplicates"] = "error";
@@ -157,18 +159,19 @@ function decideColumn(s: Observation["columns"][number], j: Judged, blankMarkers
     spec.type = "date";
     spec.format = choice.formats.length === 1 ? choice.formats[0] : [...choice.formats];
     if (choice.alsoReads.length > 0) notes.push(`${choice.alsoReads.join(", ")} also read${choice.alsoReads.length === 1 ? "s" : ""} these values: confirm the format with the sender`);
-    if (!sensitive) notes.push(range(s.dateLow, s.dateHigh));
+    if (!sensitive) notes.push(range(choice.low, choice.high));
   } else spec.type = "text";
 
   if (values > 0 && blanks === 0) spec.required = true;
   if (spec.type === "text" && values > 0) {
     const codes = !sensitive && !s.distinctOverflow && distinct.size <= MAX_CODES && values >= CODE_REPEAT * distinct.size;
+    // One distinct value gives no shape worth a pattern (`^John$`); two or more do.
+    const pattern = s.distinctOverflow || distinct.size >= 2 ? s.shape.pattern(!sensitive) : undefined;
     if (emails && markerValues.every(isEmail)) spec.format = "email";
-    else if (codes) spec.codes = [...distinct].sort((a, b) => (a < b ? -1 : a > b ? 1 : 0));
-    else {
-      const pattern = s.shape.pattern(!sensitive);
-      if (pattern !== undefined) spec.pattern = pattern;
-    }
+    else if (codes) {
+      spec.codes = [...distinct].sort((a, b) => (a < b ? -1 : a > b ? 1 : 0));
+      if (pattern !== undefined) notes.push(`every value matches ${pattern}, if codes are too tight`);
+    } else if (pattern !== undefined) spec.pattern = pattern;
     notes.push(s.distinctOverflow ? `over ${DISTINCT_CAP} distinct values` : `${distinct.size} distinct value${distinct.size === 1 ? "" : "s"}`);
     notes.push(minLength === maxLength ? `length ${maxLength}` : `length ${minLength} to ${maxLength}`);
   }

@@ -33,12 +33,15 @@ interface Live {
   outcome: KeyOutcome;
 }
 
-/** A tracker for records of `width` cells. Memory: one string per row and live candidate, up to the caps. */
-export function createKeyTracker(width: number): KeyTracker {
+/**
+ * A tracker for records of `width` cells. Memory: one string per row and live candidate, up to the
+ * caps (KEY_ROW_CAP for the first column and pair, OTHER_KEY_ROW_CAP for the rest unless given).
+ */
+export function createKeyTracker(width: number, caps: { readonly first: number; readonly other: number } = { first: KEY_ROW_CAP, other: OTHER_KEY_ROW_CAP }): KeyTracker {
   const live: Live[] = [];
-  if (width >= 1) live.push({ columns: [0], cap: KEY_ROW_CAP, seen: new Set(), outcome: "unique" });
-  if (width >= 2) live.push({ columns: [0, 1], cap: KEY_ROW_CAP, seen: new Set(), outcome: "unique" });
-  for (let c = 1; c < width; c++) live.push({ columns: [c], cap: OTHER_KEY_ROW_CAP, seen: new Set(), outcome: "unique" });
+  if (width >= 1) live.push({ columns: [0], cap: caps.first, seen: new Set(), outcome: "unique" });
+  if (width >= 2) live.push({ columns: [0, 1], cap: caps.first, seen: new Set(), outcome: "unique" });
+  for (let c = 1; c < width; c++) live.push({ columns: [c], cap: caps.other, seen: new Set(), outcome: "unique" });
   let rows = 0;
 
   return {
