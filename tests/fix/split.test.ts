@@ -158,7 +158,7 @@ describe("what fix refuses", () => {
   test("--out naming the delivery is refused with exit 2 and the delivery is untouched", async () => {
     const p = await project({ "c.yaml": CONTRACT, "d.csv": DATA });
     open.push(p);
-    const args = [...FIX_ARGS];
+    const args: string[] = [...FIX_ARGS];
     args[args.indexOf("out.csv")] = "./d.csv";
     const r = await p.run(args);
     expect(r.code).toBe(2);
