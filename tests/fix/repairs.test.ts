@@ -74,12 +74,12 @@ describe("date", () => {
   });
 
   test("serial-1900 day numbers become ISO dates", async () => {
-    const r = await fixColumn('{ type: date, format: ["%Y-%m-%d", serial-1900] }', ["45000", "61"]);
-    // Spreadsheet 1900 date system (Microsoft, "Date systems in Excel"): serial 1 is 1900-01-01 and
-    // the system counts a 29 February 1900, so from serial 61 on, day N is 1899-12-30 plus N days.
+    const r = await fixColumn('{ type: date, format: ["%Y-%m-%d", serial-1900] }', ["25569", "45000", "61"]);
+    // ECMA-376 Part 4 (Office Open XML), 1900 date system: serial 25569 is 1970-01-01, and the system
+    // counts a 29 February 1900, so from serial 61 on day N is 1899-12-30 plus N days.
     const iso = (n: number) => new Date(Date.UTC(1899, 11, 30) + n * 86_400_000).toISOString().slice(0, 10);
-    expect(r.clean).toEqual([iso(45000), iso(61)]);
-    expect(iso(61)).toBe("1900-03-01");
+    expect(r.clean).toEqual(["1970-01-01", iso(45000), "1900-03-01"]);
+    expect(iso(25569)).toBe("1970-01-01");
   });
 
   test("a column that does not accept ISO dates keeps its cells, so the clean file still meets it", async () => {
