@@ -55,6 +55,30 @@ function candidates(type: ColumnPlan["type"], value: Value, text: string): reado
   }
 }
 
+const isDigit = (c: number): boolean => c >= 48 && c <= 57;
+
+/** Text no rewrite would change, told without parsing: most cells of a tidy delivery. */
+function alreadyPlain(type: ColumnPlan["type"], text: string): boolean {
+  switch (type) {
+    case "date":
+      // YYYY-MM-DD is what formatValue writes for years 0000-9999.
+      return text.length === 10 && text.charCodeAt(4) === 45 && text.charCodeAt(7) === 45 && isDigit(text.charCodeAt(0)) && isDigit(text.charCodeAt(9));
+    case "boolean":
+      return text === "true" || text === "false";
+    case "integer":
+    case "decimal": {
+      // Only a sign and digits: no separator, mark or percent to rewrite.
+      for (let i = 0; i < text.length; i++) {
+        const c = text.charCodeAt(i);
+        if (!isDigit(c) && !(i === 0 && (c === 43 || c === 45))) return false;
+      }
+      return true;
+    }
+    default:
+      return false;
+  }
+}
+
 /**
  * The typed rewrite of a column: a candidate is kept only when the column's own parser reads it as
  * the same value (so the contract still accepts it and nothing changes meaning) and no check of the
@@ -64,6 +88,7 @@ function typedRepair(col: ColumnPlan): TypedRepair | undefined {
   if (REPAIR_OF_TYPE[col.type] === undefined) return undefined;
   const checks = col.cellChecks;
   return (text, row) => {
+    if (alreadyPlain(col.type, text)) return undefined;
     const value = col.parse(text);
     if (value === undefined || value === null) return undefined;
     for (const c of candidates(col.type, value, text)) {

@@ -1,11 +1,7 @@
-import { afterEach, expect, test } from "vitest";
-import { fixRun, logEntries, type Project } from "./helpers.js";
+import { expect, test } from "vitest";
+import { fixRun, logEntries, removedAfterEach } from "./helpers.js";
 
-let open: Project[] = [];
-afterEach(async () => {
-  for (const p of open) await p.remove();
-  open = [];
-});
+const open = removedAfterEach();
 
 const COLUMNS = `columns:
   item: { type: text, required: true }

@@ -2,6 +2,7 @@ import { mkdir, mkdtemp, readFile, rm, writeFile } from "node:fs/promises";
 import { tmpdir } from "node:os";
 import { dirname, join } from "node:path";
 import { parse } from "csv-parse/sync";
+import { afterEach } from "vitest";
 import { run } from "../../src/cli/run.js";
 
 /** One in-process run of the command line inside a project folder. */
@@ -77,4 +78,13 @@ export async function fixRun(contract: string, data: string | Uint8Array, extra:
   const rejects = (await p.exists("rejects.csv")) ? await p.read("rejects.csv") : undefined;
   const log = (await p.exists("log.ndjson")) ? await p.read("log.ndjson") : undefined;
   return { p, ran, out, rejects, log };
+}
+
+/** A list to push every project a test opens onto; each is removed after its test. */
+export function removedAfterEach(): Project[] {
+  const opened: Project[] = [];
+  afterEach(async () => {
+    for (const p of opened.splice(0)) await p.remove();
+  });
+  return opened;
 }

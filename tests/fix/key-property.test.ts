@@ -1,12 +1,8 @@
-import { afterEach, expect, test } from "vitest";
+import { expect, test } from "vitest";
 import { mulberry32 } from "../../src/bench/prng.js";
-import { fixRun, logEntries, records, type Project } from "./helpers.js";
+import { fixRun, logEntries, records, removedAfterEach } from "./helpers.js";
 
-let open: Project[] = [];
-afterEach(async () => {
-  for (const p of open) await p.remove();
-  open = [];
-});
+const open = removedAfterEach();
 
 // Invented tent and stove orders; every column type, messy spellings, some records beyond repair.
 const CONTRACT = `tablegate: 1

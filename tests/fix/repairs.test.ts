@@ -1,11 +1,7 @@
-import { afterEach, describe, expect, test } from "vitest";
-import { fixRun, logEntries, records, type Project } from "./helpers.js";
+import { describe, expect, test } from "vitest";
+import { fixRun, logEntries, records, removedAfterEach } from "./helpers.js";
 
-let open: Project[] = [];
-afterEach(async () => {
-  for (const p of open) await p.remove();
-  open = [];
-});
+const open = removedAfterEach();
 
 /** Fix a one-column delivery; return the clean cells of that column and the log. */
 async function fixColumn(column: string, cells: readonly string[], input = "") {

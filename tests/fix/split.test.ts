@@ -1,14 +1,10 @@
 import { readdir, symlink } from "node:fs/promises";
 import { join } from "node:path";
-import { afterEach, describe, expect, test } from "vitest";
+import { describe, expect, test } from "vitest";
 import { mask } from "../../src/report/mask.js";
-import { FIX_ARGS, fixRun, logEntries, project, records, type Project } from "./helpers.js";
+import { FIX_ARGS, fixRun, logEntries, project, records, removedAfterEach } from "./helpers.js";
 
-let open: Project[] = [];
-afterEach(async () => {
-  for (const p of open) await p.remove();
-  open = [];
-});
+const open = removedAfterEach();
 
 // An invented delivery of an outdoor-gear wholesaler: order lines with messy but readable cells.
 const CONTRACT = `tablegate: 1
