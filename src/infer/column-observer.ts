@@ -97,6 +97,8 @@ export function createColumnObserver(name: string, serialDates: boolean): Column
     }
     values++;
     if (!distinctOverflow) {
+      // a value seen before changes nothing below: most cells of a column with few values stop here
+      if (distinct.has(text)) return;
       distinct.add(text);
       if (distinct.size > DISTINCT_CAP) {
         distinctOverflow = true;

@@ -72,35 +72,12 @@ export function createShapeTracker(): ShapeTracker {
   return {
     add(text) {
       if (dead) return;
-      const next = tokenize(text);
-      if (next === undefined) {
-        dead = true;
-        return;
-      }
       if (tokens === undefined) {
-        tokens = next;
+        tokens = tokenize(text);
+        if (tokens === undefined) dead = true;
         return;
       }
-      if (next.length !== tokens.length) {
-        dead = true;
-        return;
-      }
-      for (let t = 0; t < next.length; t++) {
-        const a = tokens[t] as Token;
-        const b = next[t] as Token;
-        if ("sep" in a || "sep" in b) {
-          if (!("sep" in a && "sep" in b && a.sep === b.sep)) {
-            dead = true;
-            return;
-          }
-          continue;
-        }
-        const w = a.word;
-        w.classes |= b.word.classes;
-        w.min = Math.min(w.min, b.word.min);
-        w.max = Math.max(w.max, b.word.max);
-        if (w.constant !== b.word.constant) w.constant = undefined;
-      }
+      if (!merge(tokens, text)) dead = true;
     },
     pattern(constants) {
       if (dead || tokens === undefined) return undefined;
@@ -116,6 +93,38 @@ export function createShapeTracker(): ShapeTracker {
       return source + "$";
     },
   };
+}
+
+/** Widen `tokens` to cover `text` in place, without building its tokens; false when the shapes differ. */
+function merge(tokens: readonly Token[], text: string): boolean {
+  let i = 0;
+  for (let t = 0; t < tokens.length; t++) {
+    const token = tokens[t] as Token;
+    if ("sep" in token) {
+      // a separator run is maximal: the same characters, then a word character or the end
+      if (!text.startsWith(token.sep, i)) return false;
+      i += token.sep.length;
+      if (i < text.length && !isWordChar(text.charCodeAt(i))) return false;
+      continue;
+    }
+    const start = i;
+    let classes = 0;
+    for (; i < text.length; i++) {
+      const c = text.charCodeAt(i);
+      if (c >= 65 && c <= 90) classes |= UPPER;
+      else if (c >= 97 && c <= 122) classes |= LOWER;
+      else if (c >= 48 && c <= 57) classes |= DIGIT;
+      else break;
+    }
+    const len = i - start;
+    if (len === 0) return false;
+    const w = token.word;
+    w.classes |= classes;
+    if (len < w.min) w.min = len;
+    if (len > w.max) w.max = len;
+    if (w.constant !== undefined && (len !== w.constant.length || !text.startsWith(w.constant, start))) w.constant = undefined;
+  }
+  return i === text.length;
 }
 
 function isWordChar(c: number): boolean {
