@@ -109,3 +109,12 @@ describe("records of another width", () => {
     expect((JSON.parse(check.stdout) as { findings: { rule: string; line: number }[] }).findings.map((f) => [f.rule, f.line])).toEqual([["row.width", 3]]);
   });
 });
+
+describe("header names YAML must quote", () => {
+  it("come back as written, and the draft passes its file", async () => {
+    const data = 'Unit Price,#,"x: y",- a,\'q\',yes,"b\nc",\n1,2,3,4,5,6,7,8\n';
+    const r = await roundTrip(data);
+    expect(Object.keys(r.contract.columns)).toEqual(["Unit Price", "#", "x: y", "- a", "'q'", "yes", "b\nc", ""]);
+    expect(r.check.code).toBe(0);
+  });
+});
