@@ -109,10 +109,9 @@ export function createColumnObserver(name: string, serialDates: boolean): Column
     if (text.length > maxLength) maxLength = text.length;
     shape.add(text);
     if (emails && !isEmail(text)) emails = false;
-    // A leading zero (`08123`) marks an identifier, not a quantity: no number type may claim it.
-    if (text.length > 1 && text.charCodeAt(0) === 48 && text.charCodeAt(1) >= 48 && text.charCodeAt(1) <= 57) {
-      for (const i of NUMBER_CANDIDATES) fits[i] = false;
-    }
+    // A leading zero (`08123`) or more digits than a double holds exactly (card and account numbers)
+    // marks an identifier, not a quantity: no number type may claim it.
+    if (identifierDigits(text)) for (const i of NUMBER_CANDIDATES) fits[i] = false;
     for (let i = 0; i < n; i++) {
       if (!fits[i]) continue;
       const c = VALUE_CANDIDATES[i] as (typeof VALUE_CANDIDATES)[number];
@@ -160,4 +159,14 @@ export function createColumnObserver(name: string, serialDates: boolean): Column
       distinct, distinctOverflow, minLength: values === 0 ? 0 : minLength, maxLength, shape, emails: emails && values > 0,
     }),
   };
+}
+
+/** Digits only, and either a leading zero before another digit or more than 15 of them. */
+function identifierDigits(text: string): boolean {
+  if (text.length < 2) return false;
+  for (let i = 0; i < text.length; i++) {
+    const c = text.charCodeAt(i);
+    if (c < 48 || c > 57) return text.charCodeAt(0) === 48 && i > 1;
+  }
+  return text.charCodeAt(0) === 48 || text.length > 15;
 }

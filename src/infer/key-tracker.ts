@@ -1,7 +1,7 @@
 /** Rows up to which the first column, and the first two together, are checked for uniqueness. */
 export const KEY_ROW_CAP = 1_000_000;
 /** Rows up to which every other column is checked (they are only mentioned, never proposed). */
-export const OTHER_KEY_ROW_CAP = 100_000;
+export const OTHER_KEY_ROW_CAP = 20_000;
 
 /** How a candidate key fared: unique in every row, repeated (or blank) somewhere, or unique up to its cap. */
 export type KeyOutcome = "unique" | "repeats" | "capped";

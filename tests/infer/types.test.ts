@@ -45,6 +45,12 @@ describe("numbers", () => {
     const zip = await decided("zip", ["08123", "12345", "90210"]);
     expect(zip).toMatchObject({ type: "text", pattern: "^[0-9]{5}$" });
   });
+
+  it("more than 15 digits (beyond what a double holds exactly) are text too", async () => {
+    const spec = await decided("account_ref", ["1234567890123456", "9876543210987654"]);
+    expect(spec).toMatchObject({ type: "text", pattern: "^[0-9]{16}$" });
+    expect((await decided("big_count", ["123456789012345", "1"])).type).toBe("integer");
+  });
 });
 
 describe("booleans", () => {
