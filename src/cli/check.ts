@@ -132,7 +132,8 @@ async function planJobs(root: string, config: ProjectConfig, files: string[], co
   return { ok: true, value: { jobs, unclaimed } };
 }
 
-async function loadPlan(root: string, contract: string, registry: Registry): Promise<Result<Plan>> {
+/** Compile a contract (root-relative path) against the registry, refusing tables that left their lock. */
+export async function loadPlan(root: string, contract: string, registry: Registry): Promise<Result<Plan>> {
   const loaded = await loadContract(resolve(root, contract), { registry, label: contract });
   if (!loaded.ok) return loaded;
   const lock = await verifyLock(root, registry, loaded.value.references.map((r) => r.table));

@@ -1,11 +1,11 @@
 import { isAbsolute, join, resolve } from "node:path";
 import { parseArgs } from "node:util";
-import { loadContract } from "../contract/load.js";
 import { fixFile } from "../fix/fix-file.js";
 import { fixSummary } from "../fix/summary.js";
 import { checkTargets, type FixTargets } from "../fix/targets.js";
 import { contractFor, loadProjectConfig } from "../project/config.js";
-import { loadRegistry, verifyLock } from "../registry/index.js";
+import { loadRegistry } from "../registry/index.js";
+import { loadPlan } from "./check.js";
 import { EXIT, type Io } from "./io.js";
 import { badArgument, unusable } from "./problems.js";
 import { findRoot, reportPath } from "./root.js";
@@ -53,10 +53,8 @@ export async function fix(argv: readonly string[], io: Io): Promise<number> {
   }
   const registry = await loadRegistry(root, config.value.registries);
   if (!registry.ok) return unusable(io, registry.problems);
-  const loaded = await loadContract(resolve(root, contract), { registry: registry.value, label: contract });
+  const loaded = await loadPlan(root, contract, registry.value);
   if (!loaded.ok) return unusable(io, loaded.problems);
-  const lock = await verifyLock(root, registry.value, loaded.value.references.map((r) => r.table));
-  if (!lock.ok) return unusable(io, lock.problems);
 
   const r = await fixFile(loaded.value, input, targets, { input: inputLabel, contract, out: shown.out });
   if (!r.ok) return unusable(io, r.problems.map((p) => ({ ...p, file: p.file === input ? inputLabel : p.file })));
