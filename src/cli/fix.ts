@@ -1,4 +1,4 @@
-import { isAbsolute, join, resolve } from "node:path";
+import { isAbsolute, join } from "node:path";
 import { parseArgs } from "node:util";
 import { fixFile } from "../fix/fix-file.js";
 import { fixSummary } from "../fix/summary.js";
