@@ -11,14 +11,8 @@ import { createRowHasher } from "./row-hash.js";
 import { createU32List } from "./growable.js";
 import { createSeenSet, type SeenSet } from "./seen-set.js";
 import { cellValue, shownValue } from "./shown.js";
+import { keyText } from "./key-text.js";
 
-/** A key part as compared: typed values by what they mean (`01` = `1`, `1.50` = `1.5`), text as written. */
-function keyText(v: Value, text: string): string {
-  if (typeof v === "string") return text;
-  if (typeof v === "number" || typeof v === "boolean") return String(v);
-  if (v === null) return "";
-  return v.kind === "date" ? `d${v.days}` : v.kind === "timestamp" ? `t${v.ms}` : `s${v.seconds}`;
-}
 
 export interface EngineOptions {
   readonly maxFindings: number;

@@ -9,6 +9,7 @@ import { BLANK_MARKERS } from "./markers.js";
 import { personalDataHint, suggestsDate } from "./names.js";
 import type { Observation } from "./observe.js";
 import { DISTINCT_CAP } from "./column-observer.js";
+import { keyText } from "../engine/key-text.js";
 
 /** A code list is proposed for a text column with at most this many distinct values... */
 export const MAX_CODES = 12;
@@ -208,13 +209,6 @@ function parserOf(spec: ColumnSpec): TypeParser | undefined {
   return c.ok ? c.parser : undefined;
 }
 
-/** A typed key part as the check compares it (src/engine/run.ts keyText): by meaning, not spelling. */
-function keyText(v: Value, text: string): string {
-  if (typeof v === "string") return text;
-  if (typeof v === "number" || typeof v === "boolean") return String(v);
-  if (v === null) return "";
-  return v.kind === "date" ? `d${v.days}` : v.kind === "timestamp" ? `t${v.ms}` : `s${v.seconds}`;
-}
 
 function quoteList(names: readonly string[]): string {
   return names.map((n) => JSON.stringify(n)).join(", ");
