@@ -9,6 +9,8 @@ export interface Measurement {
   readonly wallMs: number;
   /** Peak RSS in kilobytes as getrusage reports it; undefined when the child wrote none. */
   readonly maxRssKb: number | undefined;
+  /** User + system CPU time in milliseconds; undefined when the child wrote none. */
+  readonly cpuMs: number | undefined;
   /** The last few kilobytes of the child's stderr, for messages when it failed. */
   readonly stderrTail: string;
   /** The first few kilobytes of the child's stdout. */
@@ -55,14 +57,16 @@ export async function measure(options: MeasureOptions): Promise<Measurement> {
   });
   const wallMs = Number(process.hrtime.bigint() - start) / 1e6;
   let maxRssKb: number | undefined;
+  let cpuMs: number | undefined;
   try {
-    const n = Number((await readFile(rssFile, "utf8")).trim());
-    maxRssKb = Number.isFinite(n) && n > 0 ? n : undefined;
+    const [rss, cpu] = (await readFile(rssFile, "utf8")).trim().split(" ").map(Number);
+    maxRssKb = rss !== undefined && Number.isFinite(rss) && rss > 0 ? rss : undefined;
+    cpuMs = cpu !== undefined && Number.isFinite(cpu) && cpu > 0 ? cpu : undefined;
   } catch {
     maxRssKb = undefined;
   }
   await rm(rssFile, { force: true });
-  return { code, signal, wallMs, maxRssKb, stderrTail: tail, stdoutHead: head };
+  return { code, signal, wallMs, maxRssKb, cpuMs, stderrTail: tail, stdoutHead: head };
 }
 
 /** Median of a non-empty list (mean of the middle two for an even count). */

@@ -129,6 +129,11 @@ async function main(): Promise<number> {
     else lines.push(`${columnsOnly.label}: did not run (${explain("", cols).trim()})`);
     const ratio = median(full.runs.map((r) => r.wallMs)) / median(bare.runs.map((r) => r.wallMs));
     lines.push(`ratio tablegate / bare csv-parse (median wall time): ${fmt(ratio, 2)}`);
+    const cpu = (s: readonly Measurement[]) => median(s.map((r) => r.cpuMs ?? Number.NaN));
+    const cpuRatio = cpu(full.runs) / cpu(bare.runs);
+    if (Number.isFinite(cpuRatio)) {
+      lines.push(`ratio by CPU time (user + system, median; steadier on a shared machine): ${fmt(cpuRatio, 2)} (${fmt(cpu(full.runs) / 1000, 2)} s against ${fmt(cpu(bare.runs) / 1000, 2)} s)`);
+    }
     if (columnsOnly.runs.length > 0) {
       const share = 1 - (columnsOnly.runs[0]?.wallMs ?? 0) / median(full.runs.map((r) => r.wallMs));
       lines.push(`rules, groups and outliers take about ${fmt(share * 100, 0)}% of tablegate's time (one run, indicative)`);
