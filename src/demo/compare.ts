@@ -1,4 +1,4 @@
-import type { DeliveryExpectation } from "./expected.js";
+import type { DeliveryOutcome } from "./expected.js";
 
 interface Tally { readonly failed: number; readonly rows: number[] }
 
@@ -30,7 +30,7 @@ function sameRows(a: readonly number[], b: readonly number[]): boolean {
 }
 
 /** Every way a parsed JSON report differs from the designed outcome; empty when it matches. */
-export function compareReport(report: unknown, expect: DeliveryExpectation): string[] {
+export function compareReport(report: unknown, expect: DeliveryOutcome): string[] {
   if (!isRecord(report)) return ["the JSON report is not an object"];
   const diffs: string[] = [];
   if (report["verdict"] !== expect.verdict) diffs.push(`verdict ${String(report["verdict"])}, expected ${expect.verdict}`);

@@ -8,7 +8,7 @@ export interface ExpectedFailure {
 }
 
 /** The designed outcome of checking one demo delivery. */
-export interface DeliveryExpectation {
+export interface DeliveryOutcome {
   readonly file: string;
   readonly exitCode: 0 | 1;
   readonly verdict: "pass" | "fail";
@@ -20,7 +20,7 @@ export interface DeliveryExpectation {
 export const CONTRACT = "contracts/dealer-sales.contract.yaml";
 
 /** Week 48: the problems planted in contracts/samples/dealer-sales-w48.csv. */
-export const WEEK_48: DeliveryExpectation = {
+export const WEEK_48: DeliveryOutcome = {
   file: "contracts/samples/dealer-sales-w48.csv",
   exitCode: 1,
   verdict: "fail",
@@ -43,7 +43,7 @@ export const WEEK_48: DeliveryExpectation = {
 };
 
 /** Week 47: a clean delivery. */
-export const WEEK_47: DeliveryExpectation = {
+export const WEEK_47: DeliveryOutcome = {
   file: "contracts/samples/dealer-sales-w47.csv",
   exitCode: 0,
   verdict: "pass",

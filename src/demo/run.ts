@@ -6,7 +6,7 @@ import { parseArgs } from "node:util";
 import { parse as parseCsv } from "csv-parse/sync";
 import { parse as parseYaml } from "yaml";
 import { compareReport, leakedValues } from "./compare.js";
-import { CONTRACT, REPORT_FILES, WEEK_47, WEEK_48, type DeliveryExpectation } from "./expected.js";
+import { CONTRACT, REPORT_FILES, WEEK_47, WEEK_48, type DeliveryOutcome } from "./expected.js";
 
 // The demo runs tablegate the way a user does, as `node bin/tablegate.js` in its own process, on
 // a delivery with planted problems and on a clean one, and exits 0 only when both came out as designed.
@@ -58,7 +58,7 @@ async function readJson(path: string): Promise<unknown> {
   }
 }
 
-function exitDiff(label: string, run: CliRun, expect: DeliveryExpectation): string[] {
+function exitDiff(label: string, run: CliRun, expect: DeliveryOutcome): string[] {
   if (run.code === expect.exitCode) return [];
   return [`${label}: exit ${String(run.code)}, expected ${expect.exitCode}${run.stderr.trim() === "" ? "" : `: ${run.stderr.trim()}`}`];
 }

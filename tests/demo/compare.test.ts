@@ -1,8 +1,8 @@
 import { describe, expect, it } from "vitest";
 import { compareReport, leakedValues } from "../../src/demo/compare.js";
-import type { DeliveryExpectation } from "../../src/demo/expected.js";
+import type { DeliveryOutcome } from "../../src/demo/expected.js";
 
-const expectation: DeliveryExpectation = {
+const designed: DeliveryOutcome = {
   file: "x.csv",
   exitCode: 1,
   verdict: "fail",
@@ -23,7 +23,7 @@ describe("compareReport", () => {
       [{ rule: "qty.type", failed: 2 }, { rule: "group:g", failed: 1 }, { rule: "sku.pattern", failed: 0 }],
       [{ rule: "qty.type", row: 7 }, { rule: "qty.type", row: 3 }, { rule: "group:g", row: 1 }],
     );
-    expect(compareReport(r, expectation)).toEqual([]);
+    expect(compareReport(r, designed)).toEqual([]);
   });
 
   it("names a missing check, a wrong count, wrong rows and an unexpected check", () => {
@@ -31,7 +31,7 @@ describe("compareReport", () => {
       [{ rule: "qty.type", failed: 3 }, { rule: "sku.spaces", failed: 1 }],
       [{ rule: "qty.type", row: 3 }, { rule: "qty.type", row: 8 }, { rule: "sku.spaces", row: 4 }],
     );
-    const diffs = compareReport(r, expectation);
+    const diffs = compareReport(r, designed);
     expect(diffs).toHaveLength(4);
     expect(diffs.filter((d) => d.startsWith("group:g:"))).toHaveLength(1);
     expect(diffs.filter((d) => d.startsWith("qty.type:"))).toHaveLength(2);
@@ -40,9 +40,9 @@ describe("compareReport", () => {
 
   it("names a wrong verdict and row count, and a report that is not an object", () => {
     const r = report([{ rule: "qty.type", failed: 2 }, { rule: "group:g", failed: 1 }], [{ rule: "qty.type", row: 3 }, { rule: "qty.type", row: 7 }], { verdict: "pass", input: { rows: 9 } });
-    expect(compareReport(r, expectation)).toHaveLength(2);
-    expect(compareReport("oops", expectation)).toHaveLength(1);
-    expect(compareReport({ verdict: "pass", input: { rows: 10 }, checks: [], findings: [] }, { ...expectation, verdict: "pass", failures: {} })).toEqual([]);
+    expect(compareReport(r, designed)).toHaveLength(2);
+    expect(compareReport("oops", designed)).toHaveLength(1);
+    expect(compareReport({ verdict: "pass", input: { rows: 10 }, checks: [], findings: [] }, { ...designed, verdict: "pass", failures: {} })).toEqual([]);
   });
 });
 

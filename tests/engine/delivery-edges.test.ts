@@ -1,6 +1,6 @@
 /**
  * Shapes real deliveries take that the golden suite does not: line ends, quoting of the header,
- * delimiters, blank lines, whitespace-only cells. Expectations from SPEC §1.1/§1.4/§4 and RFC 4180.
+ * delimiters, blank lines, whitespace-only cells. Expected results from SPEC §1.1/§1.4/§4 and RFC 4180.
  */
 import { describe, expect, it } from "vitest";
 import { checkJson } from "../helpers/cli.js";

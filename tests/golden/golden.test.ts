@@ -34,7 +34,7 @@ const cases = readdirSync(here, { withFileTypes: true })
   .map((d) => d.name)
   .sort();
 
-/** Pair expected with actual findings; the most specific expectations claim their match first. */
+/** Pair expected with actual findings; the most specific expected findings claim their match first. */
 function unmatched(actual: readonly Finding[], expected: readonly FindingShape[]): { missing: FindingShape[]; extra: FindingShape[] } {
   const left = [...actual];
   const missing: FindingShape[] = [];
