@@ -9,7 +9,7 @@ import { fail, ok, type Problem, type Result } from "../problem.js";
 import { contractFor, type ProjectConfig } from "../project/config.js";
 import { routedFiles } from "../project/files.js";
 import { globToRegExp } from "../project/glob.js";
-import type { DeliveryReport, Finding, Level } from "../report/model.js";
+import type { DeliveryReport, Finding } from "../report/model.js";
 import { revisionWithContent, tableAtRevision } from "./git.js";
 import type { Registry } from "./load.js";
 import { LOCK_FILE, readLock } from "./lock.js";
@@ -31,17 +31,8 @@ export interface TableReader {
   readonly col: number;
 }
 
-/** A row whose findings of the table-reading checks differ between the locked and the working table. */
-export interface RowChange {
-  readonly rule: string;
-  readonly level: Level;
-  readonly row?: number;
-  readonly line?: number;
-  readonly column?: string;
-  /** masked when the column is sensitive, as in every report */
-  readonly value?: string;
-  readonly message: string;
-}
+/** A row whose findings of the table-reading checks differ between the locked and the working table (a finding of one side). */
+export type RowChange = Omit<Finding, "expected">;
 
 /** How a contract stands with the table. */
 export interface ContractImpact {
