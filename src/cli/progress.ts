@@ -1,3 +1,5 @@
+import { thousands } from "../report/thousands.js";
+
 /** Seconds a run must last before a progress line appears. */
 const QUIET_FOR_MS = 1000;
 const EVERY_MS = 250;
@@ -26,7 +28,7 @@ export function createProgress(write: (s: string) => void, label: string, totalB
       const seconds = (t - start) / 1000;
       const read = bytesRead();
       const left = read > 0 && totalBytes > read ? ` · about ${duration((seconds * (totalBytes - read)) / read)} left` : "";
-      write(`\r\x1b[K${label}: ${rows.toLocaleString("en-US")} rows · ${mb(read)} of ${mb(totalBytes)} MB · ${Math.round(rows / seconds).toLocaleString("en-US")} rows/s${left}`);
+      write(`\r\x1b[K${label}: ${thousands(rows)} rows · ${mb(read)} of ${mb(totalBytes)} MB · ${thousands(rows / seconds)} rows/s${left}`);
       shown = true;
     },
     done() {

@@ -56,3 +56,11 @@ describe("colour", () => {
     expect(paint(true, "error", "ERROR")).toBe("\x1b[1;31mERROR\x1b[0m");
   });
 });
+
+describe("thousands", () => {
+  it("groups digits by three as en-US does (Intl.NumberFormat as the reference)", async () => {
+    const { thousands } = await import("../../src/report/thousands.js");
+    const fmt = new Intl.NumberFormat("en-US", { maximumFractionDigits: 0 });
+    for (const x of [0, 7, 999, 1000, 12345, 999999, 1000000, 1234567890, -4321, 1e15]) expect(thousands(x)).toBe(fmt.format(x));
+  });
+});
