@@ -1,21 +1,13 @@
 import { createHash } from "node:crypto";
 import { readFile } from "node:fs/promises";
-import { Ajv2020, type ValidateFunction } from "ajv/dist/2020.js";
 import type { Problem, Result } from "../problem.js";
 import type { Registry } from "../registry/index.js";
-import { readSchema } from "../schema/locate.js";
+import { schemaValidator } from "../schema/validator.js";
 import { compilePlan } from "./compile.js";
 import type { Plan } from "./plan.js";
 import { schemaProblems } from "./schema-errors.js";
 import type { ContractSpec } from "./types.js";
 import { parseYamlSource } from "./yaml-source.js";
-
-let validator: ValidateFunction | undefined;
-
-function validateContract(): ValidateFunction {
-  validator ??= new Ajv2020({ strict: true, allErrors: true, allowUnionTypes: true, verbose: true }).compile(readSchema("contract.schema.json"));
-  return validator;
-}
 
 export interface LoadOptions {
   readonly registry: Registry;
@@ -30,8 +22,8 @@ export function compileContract(file: string, text: string, options: LoadOptions
   const src = parseYamlSource(file, text);
   if (src.syntaxProblems.length > 0) return { ok: false, problems: src.syntaxProblems };
   const data: unknown = src.doc.toJS({ maxAliasCount: 100 });
-  const validate = validateContract();
-  if (!validate(data)) return { ok: false, problems: schemaProblems(src, data, validate.errors ?? []) };
+  const validator = schemaValidator("contract");
+  if (!validator.valid(data)) return { ok: false, problems: schemaProblems(src, data, validator.errors(data)) };
   const sha256 = createHash("sha256").update(text).digest("hex");
   const { plan, problems } = compilePlan({ src, spec: data as ContractSpec, sha256, registry: options.registry, ...(options.today === undefined ? {} : { today: options.today }) });
   return plan ? { ok: true, value: plan } : { ok: false, problems };

@@ -1,10 +1,9 @@
 import { readFile } from "node:fs/promises";
 import { join } from "node:path";
-import { Ajv2020, type ValidateFunction } from "ajv/dist/2020.js";
 import { schemaProblems } from "../contract/schema-errors.js";
 import { problemAt, parseYamlSource } from "../contract/yaml-source.js";
 import type { Problem, Result } from "../problem.js";
-import { readSchema } from "../schema/locate.js";
+import { schemaValidator } from "../schema/validator.js";
 import { globToRegExp } from "./glob.js";
 
 export const PROJECT_FILE = "tablegate.yaml";
@@ -23,8 +22,6 @@ export interface ProjectConfig {
   readonly present: boolean;
 }
 
-let validator: ValidateFunction | undefined;
-
 /** Read `tablegate.yaml` at the root; absent means no routes and no further registries. */
 export async function loadProjectConfig(root: string): Promise<Result<ProjectConfig>> {
   let text: string;
@@ -39,8 +36,8 @@ export async function loadProjectConfig(root: string): Promise<Result<ProjectCon
     registries?: string[];
     deliveries?: { files: string | string[]; contract: string }[];
   };
-  validator ??= new Ajv2020({ strict: true, allErrors: true, verbose: true }).compile(readSchema("project.schema.json"));
-  if (!validator(data)) return { ok: false, problems: schemaProblems(src, data, validator.errors ?? []) };
+  const validator = schemaValidator("project");
+  if (!validator.valid(data)) return { ok: false, problems: schemaProblems(src, data, validator.errors(data)) };
   const routes = (data.deliveries ?? []).map((d) => {
     const globs = typeof d.files === "string" ? [d.files] : d.files;
     return { globs, matchers: globs.map(globToRegExp), contract: d.contract };

@@ -1,6 +1,5 @@
-import { readFileSync } from "node:fs";
-import Ajv2020 from "ajv/dist/2020.js";
-import type { ErrorObject, ValidateFunction } from "ajv";
+import type { ErrorObject } from "ajv";
+import { schemaValidator } from "../schema/validator.js";
 import { isScalar } from "yaml";
 import { pointerPath } from "../contract/schema-errors.js";
 import { parseYamlSource, problemAt, type YamlPath, type YamlSource } from "../contract/yaml-source.js";
@@ -30,17 +29,6 @@ export interface ManifestTable {
   readonly at: { readonly name: Position; readonly file: Position; readonly key: Position; readonly columns: Position };
 }
 
-let validator: ValidateFunction | undefined;
-
-function schemaValidator(): ValidateFunction {
-  if (!validator) {
-    // Works from src/registry and dist/registry alike: the package ships src/schema.
-    const schema: unknown = JSON.parse(readFileSync(new URL("../../src/schema/registry.schema.json", import.meta.url), "utf8"));
-    const ajv = new Ajv2020.default({ strict: true, allErrors: true });
-    validator = ajv.compile(schema as object);
-  }
-  return validator;
-}
 
 function describe(e: ErrorObject): { message: string; onKey: boolean; extra?: string } {
   const p = e.params as Record<string, unknown>;
@@ -70,15 +58,16 @@ export function parseManifest(text: string, file: string): Result<ManifestTable[
   if (src.syntaxProblems.length > 0) return fail(...src.syntaxProblems);
   const doc = src.doc;
   const data: unknown = doc.toJS({ maxAliasCount: 100 });
-  const validate = schemaValidator();
-  if (!validate(data)) {
+  const validator = schemaValidator("registry");
+  if (!validator.valid(data)) {
     const problems: Problem[] = [];
     const seen = new Set<string>();
-    for (const e of validate.errors ?? []) {
+    const errors = validator.errors(data);
+    for (const e of errors) {
       // the propertyNames error already covers the failed pattern of the name
       if (e.propertyName !== undefined) continue;
       // anyOf branches repeat what the branch errors already say
-      if (e.keyword === "anyOf" && (validate.errors ?? []).some((o) => o !== e && o.instancePath === e.instancePath)) continue;
+      if (e.keyword === "anyOf" && errors.some((o) => o !== e && o.instancePath === e.instancePath)) continue;
       const d = describe(e);
       const path: (string | number)[] = pointerPath(e.instancePath);
       if (d.extra !== undefined) path.push(d.extra);
