@@ -325,8 +325,12 @@ export async function tableImpact(root: string, tableName: string, options: Impa
   const deliveries: DeliveryImpact[] = [];
   const skipped: SkippedDelivery[] = [];
   if (wantData && before?.ok) {
+    // Without tablegate.yaml routes, the files go to the one contract that reads the table, when there
+    // is just one; with routes, a file no route claims stays unchecked.
+    const readers = [...loaded.keys()];
+    const sole = options.config.routes.length === 0 && readers.length === 1 ? readers[0] : undefined;
     for (const file of await filesMatching(root, options.data)) {
-      const contract = options.contract ?? contractFor(options.config, file);
+      const contract = options.contract ?? contractFor(options.config, file) ?? sole;
       if (contract === undefined) {
         skipped.push({ path: file, reason: "unclaimed" });
         continue;

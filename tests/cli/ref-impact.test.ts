@@ -221,3 +221,30 @@ describe("tablegate ref impact", () => {
     expect(r.err).toContain("ship-methods");
   });
 });
+
+describe("tablegate ref impact without tablegate.yaml", () => {
+  it("checks --data files against the one contract that reads the table", async () => {
+    const root = await mkdtemp(join(tmpdir(), "tg-impact-solo-"));
+    const files: Record<string, string> = {
+      "reference/registry.yaml": "tables:\n  gear-categories:\n    file: gear-categories.csv\n    key: code\n    version: \"1\"\n",
+      "reference/gear-categories.csv": "code\nTENT\nSTOVE\n",
+      "contracts/orders.contract.yaml": "tablegate: 1\nname: orders\ncolumns:\n  id: { type: integer }\n  category: { type: text, codes: { table: gear-categories, column: code } }\n",
+      "data/w1.csv": "id,category\n1,TENT\n2,STOVE\n",
+    };
+    for (const [f, text] of Object.entries(files)) {
+      await mkdir(join(root, dirname(f)), { recursive: true });
+      await writeFile(join(root, f), text);
+    }
+    git(root, "init", "-q");
+    git(root, "config", "user.email", "ci@example.org");
+    git(root, "config", "user.name", "ci");
+    expect((await tg(root, "ref", "lock")).code).toBe(0);
+    git(root, "add", "-A");
+    git(root, "commit", "-qm", "start");
+    await writeFile(join(root, "reference/gear-categories.csv"), "code\nTENT\n");
+    const r = await tg(root, "ref", "impact", "gear-categories", "--data", "data/*.csv", "--json");
+    expect(r.code).toBe(1);
+    const j = JSON.parse(r.out) as ImpactJson;
+    expect(j.deliveries.map((d) => [d.path, d.fails_now.map((c) => [c.rule, c.row])])).toEqual([["data/w1.csv", [["category.codes", 2]]]]);
+  });
+});
