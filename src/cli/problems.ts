@@ -7,8 +7,12 @@ export function unusable(io: Io, problems: readonly Problem[]): number {
   return EXIT.unusable;
 }
 
-/** One argument problem, worded like the others. */
+/**
+ * One argument problem on one line (Node's own argument messages span several; they are joined),
+ * optionally followed by a `usage:` line.
+ */
 export function badArgument(io: Io, message: string): number {
-  io.stderr(`tablegate: ${message}\n`);
+  const [problem = "", usage] = message.split("\nusage: ");
+  io.stderr(`tablegate: ${problem.replace(/\s*\n\s*/g, " ")}\n${usage === undefined ? "" : `usage: ${usage}\n`}`);
   return EXIT.unusable;
 }
