@@ -1,6 +1,5 @@
-import { mkdtempSync, readdirSync, readFileSync, writeFileSync } from "node:fs";
+import { mkdirSync, mkdtempSync, readdirSync, readFileSync, writeFileSync } from "node:fs";
 import { createRequire } from "node:module";
-import { tmpdir } from "node:os";
 import { basename, join } from "node:path";
 import { describe, expect, it } from "vitest";
 import { parse } from "yaml";
@@ -11,7 +10,9 @@ const require = createRequire(import.meta.url);
 // The built tool validates with standalone code that ajv generates at build time; tests run from src
 // and use ajv directly. Both must agree on every contract we have, valid or broken.
 describe("standalone schema validators", () => {
-  const dir = mkdtempSync(join(tmpdir(), "tg-standalone-"));
+  // Inside the project, so the generated code's require("ajv/dist/runtime/...") finds node_modules.
+  mkdirSync(join(process.cwd(), "node_modules", ".cache"), { recursive: true });
+  const dir = mkdtempSync(join(process.cwd(), "node_modules", ".cache", "tg-standalone-"));
   const built = new Map<string, (data: unknown) => boolean>();
   writeStandaloneValidators((file, code) => {
     const target = join(dir, basename(file));
