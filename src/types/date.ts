@@ -24,7 +24,7 @@ export function compileDate(spec: ColumnSpec): CompiledType {
     const compiled = compileStrftime(format, "date", ["serial-1900", "serial-1904"]);
     if (compiled.ok) {
       parsers.push(compiled.parse as (text: string) => DateValue | undefined);
-    } else errors.push({ path, message: compiled.message });
+    } else errors.push({ path, message: compiled.message, ...(compiled.offset === undefined ? {} : { offset: compiled.offset }) });
   }
   if (errors.length > 0) return { ok: false, errors };
   return { ok: true, parser: { parse: firstOf(parsers), expected: `a date as ${joinOr(entries.map((e) => e.format))}` } };

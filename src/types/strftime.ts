@@ -65,7 +65,7 @@ export function compileStrftime(
   kind: PatternKind,
   /** other format names the column accepts, named in the unknown-directive message */
   names: readonly string[] = [],
-): { ok: true; parse: PatternParser; zoned: boolean } | { ok: false; message: string } {
+): { ok: true; parse: PatternParser; zoned: boolean } | { ok: false; message: string; offset?: number } {
   const tokens: Token[] = [];
   const seen: (string | undefined)[] = new Array<string | undefined>(FIELD_COUNT).fill(undefined);
   let literal = "";
@@ -77,7 +77,7 @@ export function compileStrftime(
     }
     const name = pattern[i + 1];
     i++;
-    if (name === undefined) return { ok: false, message: `the pattern ends with a lone %; write %% for a literal %` };
+    if (name === undefined) return { ok: false, message: `the pattern ends with a lone %; write %% for a literal %`, offset: i - 1 };
     if (name === "%") {
       literal += "%";
       continue;
@@ -86,11 +86,11 @@ export function compileStrftime(
     const allowed = d !== undefined && (kind === "timestamp" || (kind === "date" ? d.group === "date" : d.group === "time"));
     if (!allowed) {
       const others = names.length > 0 ? `, or one of the names ${names.join(", ")}` : "";
-      return { ok: false, message: `%${name} is not supported in a ${kind} pattern; supported: ${SUPPORTED[kind]}${others}` };
+      return { ok: false, message: `%${name} is not supported in a ${kind} pattern; supported: ${SUPPORTED[kind]}${others}`, offset: i - 1 };
     }
     const before = seen[d.field];
     if (before !== undefined) {
-      return { ok: false, message: `%${before} and %${name} both set the ${FIELD_LABEL[d.field] ?? "field"}` };
+      return { ok: false, message: `%${before} and %${name} both set the ${FIELD_LABEL[d.field] ?? "field"}`, offset: i - 1 };
     }
     seen[d.field] = name;
     if (literal !== "") tokens.push({ t: "lit", s: literal });

@@ -25,7 +25,7 @@ export function compileTime(spec: ColumnSpec): CompiledType {
   for (const { format, path } of entries) {
     const compiled = compileStrftime(format, "time");
     if (compiled.ok) parsers.push(compiled.parse as Parse);
-    else errors.push({ path, message: compiled.message });
+    else errors.push({ path, message: compiled.message, ...(compiled.offset === undefined ? {} : { offset: compiled.offset }) });
   }
   if (errors.length > 0) return { ok: false, errors };
   return { ok: true, parser: { parse: firstOf(parsers), expected: `a time as ${joinOr(entries.map((e) => e.format))}` } };

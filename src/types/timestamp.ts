@@ -33,7 +33,7 @@ export function compileTimestamp(spec: ColumnSpec): CompiledType {
     } else {
       const compiled = compileStrftime(format, "timestamp", [ISO_TIMESTAMP_FORMAT, "serial-1900", "serial-1904"]);
       if (!compiled.ok) {
-        errors.push({ path, message: compiled.message });
+        errors.push({ path, message: compiled.message, ...(compiled.offset === undefined ? {} : { offset: compiled.offset }) });
         continue;
       }
       if (policy === "required" && !compiled.zoned) errors.push({ path, message: "the pattern has no %z, but timezone is required" });

@@ -44,9 +44,9 @@ const cases: readonly BrokenCase[] = [
     at: [[6, 15]],
   },
   {
-    name: "date format with an unknown directive (points at the format value)",
+    name: "date format with an unknown directive (points at the directive inside the value)",
     contract: head + 'columns:\n  d:\n    type: date\n    format: "%Y-%q-%d"\n',
-    at: [[6, 13]],
+    at: [[6, 17]],
   },
   {
     name: "bad expression, plain scalar: the second > of qty >> 3",
