@@ -7,12 +7,11 @@ import { createCollector, type Collector } from "./collector.js";
 import { createFileEnd } from "./file-end.js";
 import { matchHeader, positional, type HeaderMatch } from "./header.js";
 import { createProfiler } from "./profile.js";
-import { createRowHasher } from "./row-hash.js";
 import { createU32List } from "./growable.js";
+import { keyText } from "./key-text.js";
+import { createRowHasher } from "./row-hash.js";
 import { createSeenSet, type SeenSet } from "./seen-set.js";
 import { cellValue, shownValue } from "./shown.js";
-import { keyText } from "./key-text.js";
-
 
 export interface EngineOptions {
   readonly maxFindings: number;
@@ -199,10 +198,10 @@ export async function runPlan(plan: Plan, batches: AsyncIterable<readonly RawRec
         const shown = rule.assert.columns.map((c) => `${cols[c]?.name}=${state[c] === 1 ? "(blank)" : shownValue(raws[c] as string, cols[c]?.sensitive === true)}${state[c] === 2 ? " (invalid)" : ""}`).join(", ");
         const first = rule.assert.columns[0];
         return {
-        ...(first === undefined ? {} : { column: cols[first]?.name ?? "" }),
-        value: shown,
-        expected: rule.assert.source,
-        message: `${rule.message ?? `${rule.assert.source} is false`} (${shown})`,
+          ...(first === undefined ? {} : { column: cols[first]?.name ?? "" }),
+          value: shown,
+          expected: rule.assert.source,
+          message: `${rule.message ?? `${rule.assert.source} is false`} (${shown})`,
         };
       });
     }
