@@ -21,6 +21,8 @@ export interface EngineOptions {
   readonly sizeHint?: number;
   /** Called after each batch of records with the rows read so far. */
   readonly onBatch?: (rows: number) => void;
+  /** Told of every failure of a row-level check (cell checks, width, keys, duplicates, rules), kept or not. */
+  readonly onRowFailure?: (check: number, row: number, level: Level) => void;
 }
 
 export interface EngineOutcome {
@@ -75,7 +77,9 @@ export async function runPlan(plan: Plan, batches: AsyncIterable<readonly RawRec
   const levelOf = (check: number): Level => plan.checks[check]?.level ?? "error";
   // Counting is exact for every failure; the finding itself (strings and all) is built only when kept.
   type Parts = Omit<Finding, "rule" | "level" | "row" | "line">;
+  const onRowFailure = options.onRowFailure;
   const emit = (check: number, rowNo: number, line: number, make: () => Parts, level?: Level) => {
+    onRowFailure?.(check, rowNo, level ?? levelOf(check));
     if (out.fail(check, rowNo, level)) out.keep(check, { rule: plan.checks[check]?.rule ?? "", level: level ?? levelOf(check), row: rowNo, line, ...make() });
   };
 

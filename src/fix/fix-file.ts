@@ -10,7 +10,7 @@ import { REPAIR_NAMES, type RepairName } from "./cell-repair.js";
 import { changeLine, rejectLine } from "./change-log.js";
 import { csvLine, type CsvDialect } from "./csv-line.js";
 import { createRowRepairer, type CellChange, type RowRepairer } from "./row-repair.js";
-import { rejectedRows, wholeFileRules } from "./row-verdicts.js";
+import { createRejections } from "./row-verdicts.js";
 import type { FixTargets } from "./targets.js";
 
 /** Columns the rejects file puts before the record's own cells: its row, its line, the rules it fails. */
@@ -113,13 +113,15 @@ export async function fixFile(plan: Plan, input: string, targets: FixTargets, la
   const first = await openDelivery(input, options);
   if (!first.ok) return first;
   const d1 = first.value;
+  const rejections = createRejections(plan);
   const judged = await runPlan(plan, repairedRecords(plan, d1), () => d1.structureBreak(), {
-    maxFindings: Number.MAX_SAFE_INTEGER,
+    maxFindings: 0,
+    onRowFailure: rejections.onRowFailure,
     ...(info === undefined || input.endsWith(".gz") ? {} : { sizeHint: info.size }),
   });
   const broke = d1.structureBreak();
   if (broke) return fail({ file: labels.input, line: broke.line, message: `cannot be repaired: ${broke.message}; nothing was written` });
-  const rejected = rejectedRows(judged.collector.findings, wholeFileRules(plan));
+  const rejected = rejections.rows;
   const hash = d1.summary().sha256;
 
   // Pass 2: write the three files beside their targets.

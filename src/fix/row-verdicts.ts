@@ -1,5 +1,5 @@
 import type { Plan } from "../contract/plan.js";
-import type { Finding } from "../report/model.js";
+import type { Level } from "../report/model.js";
 
 /**
  * Rules judged on the file as a whole (header, structure, groups, outliers, totals): they never
@@ -14,16 +14,21 @@ export function wholeFileRules(plan: Plan): ReadonlySet<string> {
 }
 
 /**
- * The records that fail an error-level check of their own (cell checks, width, rules, keys, whole-row
- * duplicates), each with its rules in the order the engine found them, one entry per rule.
+ * Collects the records that fail an error-level check of their own (cell checks, width, rules, keys,
+ * whole-row duplicates), each with its rules in the order the engine found them, one entry per rule.
+ * Fed by the engine's per-failure callback, so memory grows with rejected records, not with findings.
  */
-export function rejectedRows(findings: readonly Finding[], wholeFile: ReadonlySet<string>): Map<number, string[]> {
+export function createRejections(plan: Plan): { onRowFailure: (check: number, row: number, level: Level) => void; rows: Map<number, string[]> } {
+  const wholeFile = wholeFileRules(plan);
   const rows = new Map<number, string[]>();
-  for (const f of findings) {
-    if (f.level !== "error" || f.row === undefined || f.row <= 0 || wholeFile.has(f.rule)) continue;
-    const rules = rows.get(f.row);
-    if (rules === undefined) rows.set(f.row, [f.rule]);
-    else if (!rules.includes(f.rule)) rules.push(f.rule);
-  }
-  return rows;
+  return {
+    rows,
+    onRowFailure(check, row, level) {
+      const rule = plan.checks[check]?.rule ?? "";
+      if (level !== "error" || row <= 0 || wholeFile.has(rule)) return;
+      const rules = rows.get(row);
+      if (rules === undefined) rows.set(row, [rule]);
+      else if (!rules.includes(rule)) rules.push(rule);
+    },
+  };
 }
