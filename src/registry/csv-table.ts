@@ -119,11 +119,13 @@ export function parseCsvTable(entry: ManifestTable, bytes: Uint8Array, ctx: Tabl
     }
     cells.forEach((v, i) => {
       const column = header[i] ?? String(i + 1);
+      // A key of only spaces is reported once, as a blank key, below.
+      if (i === keyIndex && v.trim() === "") return;
       if (hasStraySpace(v)) push({ file, line, message: `cell in column "${column}" has leading or trailing spaces` });
       else if (v !== "" && !TYPE_CHECKS[types[i] ?? "text"](v)) push({ file, line, message: `cell in column "${column}" is not of type ${types[i] ?? "text"}: "${v}"` });
     });
     const key = cells[keyIndex] ?? "";
-    if (key === "") push({ file, line, message: `key "${entry.key}" is blank` });
+    if (key.trim() === "") push({ file, line, message: `key "${entry.key}" is blank` });
     else {
       const first = firstLineOfKey.get(key);
       if (first !== undefined) push({ file, line, message: `key "${key}" repeats the row at line ${first}` });
