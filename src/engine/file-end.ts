@@ -5,12 +5,18 @@ import { formatValue } from "../types/index.js";
 import type { Value } from "../values.js";
 import type { Collector } from "./collector.js";
 import { createU32List, type U32List } from "./growable.js";
+import { createRowHasher } from "./row-hash.js";
+import { createSeenSet, type SeenSet } from "./seen-set.js";
 import { shownValue } from "./shown.js";
 
-/** Groups of one `groups:` entry: key text to a dense index, and per-group columns. */
+/**
+ * Groups of one `groups:` entry: a 64-bit hash of the key to a dense index (typed arrays, as for keys;
+ * fewer memory accesses than a Map of strings), the key text by index for reporting, per-group columns.
+ */
 interface Groups {
   readonly plan: GroupPlan;
-  readonly index: Map<string, number>;
+  readonly index: SeenSet;
+  readonly keys: string[];
   readonly table: ReturnType<typeof createGroupTable>;
   readonly firstRow: U32List;
   readonly firstLine: U32List;
@@ -38,7 +44,8 @@ export type CellStates = Uint8Array;
 export function createFileEnd(plan: Plan, out: Collector) {
   const groups: Groups[] = plan.groups.map((g) => ({
     plan: g,
-    index: new Map<string, number>(),
+    index: createSeenSet(1 << 12),
+    keys: [],
     table: createGroupTable(g.assert.aggregates),
     firstRow: createU32List(),
     firstLine: createU32List(),
@@ -52,6 +59,7 @@ export function createFileEnd(plan: Plan, out: Collector) {
   const blanks = new Float64Array(plan.columns.length);
   let checked = 0;
 
+  const hasher = createRowHasher();
   // The key is the trimmed texts as given; masking of sensitive parts happens only when a group is reported.
   const groupKey = (g: GroupPlan, texts: readonly string[]): string => {
     if (g.by.length === 1) return texts[g.by[0] as number] as string;
@@ -76,18 +84,24 @@ export function createFileEnd(plan: Plan, out: Collector) {
       for (const g of groups) {
         if (g.plan.when !== undefined && !isTrue(g.plan.when.evaluate(values))) continue;
         const key = groupKey(g.plan, texts);
-        let at = key === g.recentKey ? g.recent : g.index.get(key);
-        g.recentKey = key;
-        if (at === undefined) {
-          at = g.index.size;
-          g.index.set(key, at);
-          g.firstRow.push(rowNo);
-          g.firstLine.push(line);
-          if (at >= g.rows.length) {
-            g.rows = grow(g.rows);
-            g.lastRow = grow(g.lastRow);
+        let at = g.recent;
+        if (key !== g.recentKey) {
+          hasher.reset();
+          for (const c of g.plan.by) hasher.add(texts[c] as string);
+          const known = g.index.firstOrAdd(hasher.hi, hasher.lo, g.keys.length + 1);
+          if (known !== 0) at = known - 1;
+          else {
+            at = g.keys.length;
+            g.keys.push(key);
+            g.firstRow.push(rowNo);
+            g.firstLine.push(line);
+            if (at >= g.rows.length) {
+              g.rows = grow(g.rows);
+              g.lastRow = grow(g.lastRow);
+            }
           }
         }
+        g.recentKey = key;
         g.recent = at;
         g.table.add(at, values);
         g.lastRow[at] = rowNo;
@@ -100,17 +114,13 @@ export function createFileEnd(plan: Plan, out: Collector) {
       for (const g of groups) {
         const names = g.plan.by.map((c) => plan.columns[c]?.name ?? "");
         const failing: number[] = [];
-        const keys: string[] = [];
-        for (const [key, at] of g.index) { // insertion order: by each group's first row
-          if (!isFalse(g.plan.assert.evaluate(g.table.results(at)))) continue;
-          failing.push(at);
-          keys[at] = key;
-        }
+        // Group indexes follow each group's first row, so this is file order.
+        for (let at = 0; at < g.keys.length; at++) if (isFalse(g.plan.assert.evaluate(g.table.results(at)))) failing.push(at);
         for (const at of failing) {
           const firstRow = g.firstRow.at(at);
           if (!out.fail(g.plan.check, firstRow)) continue;
           const results = g.table.results(at);
-          const parts = (keys[at] ?? "").split("\u001f");
+          const parts = (g.keys[at] ?? "").split("\u001f");
           const key = names
             .map((nm, i) => `${nm}=${parts[i] === "" ? "(blank)" : shownValue(parts[i] ?? "", plan.columns[g.plan.by[i] ?? 0]?.sensitive === true)}`)
             .join(", ");
