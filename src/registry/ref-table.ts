@@ -34,20 +34,7 @@ export interface RefTable {
 }
 
 /** What a table is apart from its rows. */
-export interface RefTableMeta {
-  readonly name: string;
-  readonly version: string;
-  readonly source?: string;
-  readonly description?: string;
-  readonly file: string;
-  readonly builtIn: boolean;
-  readonly origin: string;
-  readonly declaredAt?: { readonly line: number; readonly column: number };
-  readonly key: string;
-  readonly columns: readonly string[];
-  readonly types: readonly RefColumnType[];
-  readonly sha256: string;
-}
+export type RefTableMeta = Omit<RefTable, "keyIndex" | "rows" | "values" | "get" | "row" | "keys">;
 
 /** Build a table from rows already checked (key present, unique and non-blank, widths right). */
 export function makeRefTable(meta: RefTableMeta, records: readonly (readonly string[])[]): RefTable {
