@@ -50,14 +50,9 @@ export function createShapeTracker(): ShapeTracker {
     let i = 0;
     while (i < text.length) {
       const start = i;
-      let classes = 0;
-      for (; i < text.length; i++) {
-        const c = text.charCodeAt(i);
-        if (c >= 65 && c <= 90) classes |= UPPER;
-        else if (c >= 97 && c <= 122) classes |= LOWER;
-        else if (c >= 48 && c <= 57) classes |= DIGIT;
-        else break;
-      }
+      const run = wordRun(text, i);
+      i = run.end;
+      const classes = run.classes;
       if (i > start) {
         const w = text.slice(start, i);
         out.push({ word: { classes, min: w.length, max: w.length, constant: w } });
@@ -108,14 +103,9 @@ function merge(tokens: readonly Token[], text: string): boolean {
       continue;
     }
     const start = i;
-    let classes = 0;
-    for (; i < text.length; i++) {
-      const c = text.charCodeAt(i);
-      if (c >= 65 && c <= 90) classes |= UPPER;
-      else if (c >= 97 && c <= 122) classes |= LOWER;
-      else if (c >= 48 && c <= 57) classes |= DIGIT;
-      else break;
-    }
+    const run = wordRun(text, i);
+    i = run.end;
+    const classes = run.classes;
     const len = i - start;
     if (len === 0) return false;
     const w = token.word;
@@ -125,6 +115,20 @@ function merge(tokens: readonly Token[], text: string): boolean {
     if (w.constant !== undefined && (len !== w.constant.length || !text.startsWith(w.constant, start))) w.constant = undefined;
   }
   return i === text.length;
+}
+
+/** The run of ASCII letters and digits starting at `from`: where it ends and which classes it used. */
+function wordRun(text: string, from: number): { end: number; classes: number } {
+  let classes = 0;
+  let i = from;
+  for (; i < text.length; i++) {
+    const c = text.charCodeAt(i);
+    if (c >= 65 && c <= 90) classes |= UPPER;
+    else if (c >= 97 && c <= 122) classes |= LOWER;
+    else if (c >= 48 && c <= 57) classes |= DIGIT;
+    else break;
+  }
+  return { end: i, classes };
 }
 
 function isWordChar(c: number): boolean {
