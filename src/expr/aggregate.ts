@@ -27,36 +27,50 @@ function grown<T extends Float64Array | Uint32Array | Int8Array | Uint8Array>(a:
 }
 
 export function createGroupTable(calls: readonly AggregateCall[]): GroupTable {
-  const n = calls.length;
-  // Arrays for groups 0..started.length-1, all grown together.
-  let counts = new Uint32Array(16 * n);
-  let sums = new Float64Array(16 * n);
+  // Each call gets a place only in the columns its function needs: counts for count and sum, sums and
+  // scales for sum, values for min, max and first. A group costs nothing for columns no call uses.
+  const countAt: number[] = [];
+  const sumAt: number[] = [];
+  const valueAt: number[] = [];
+  let nCounts = 0;
+  let nSums = 0;
+  let nValues = 0;
+  for (const call of calls) {
+    const counted = call.arg === null || call.fn === "count" || call.fn === "sum";
+    countAt.push(counted ? nCounts++ : -1);
+    sumAt.push(call.arg !== null && call.fn === "sum" ? nSums++ : -1);
+    valueAt.push(call.arg !== null && (call.fn === "min" || call.fn === "max" || call.fn === "first") ? nValues++ : -1);
+  }
+  // Columns for groups 0..started.length-1, all grown together.
+  let counts = new Uint32Array(16 * nCounts);
+  let sums = new Float64Array(16 * nSums);
   // Largest decimal scale seen per sum (-1: some addend was not a short decimal), so the total is exact.
-  let scales = new Int8Array(16 * n);
+  let scales = new Int8Array(16 * nSums);
   let started = new Uint8Array(16);
   const values: Value[] = [];
   return {
     add(group, row) {
-      const base = group * n;
       if (group >= started.length) {
-        counts = grown(counts, base + n, (k) => new Uint32Array(k));
-        sums = grown(sums, base + n, (k) => new Float64Array(k));
-        scales = grown(scales, base + n, (k) => new Int8Array(k));
-        started = grown(started, group + 1, (k) => new Uint8Array(k));
+        const groups = Math.max(group + 1, started.length * 2);
+        counts = grown(counts, groups * nCounts, (k) => new Uint32Array(k));
+        sums = grown(sums, groups * nSums, (k) => new Float64Array(k));
+        scales = grown(scales, groups * nSums, (k) => new Int8Array(k));
+        started = grown(started, groups, (k) => new Uint8Array(k));
       }
       const first = started[group] === 0;
       if (first) {
         started[group] = 1;
-        for (let i = 0; i < n; i++) values[base + i] = null;
+        for (let i = 0; i < nValues; i++) values[group * nValues + i] = null;
       }
-      for (let i = 0; i < n; i++) {
+      for (let i = 0; i < calls.length; i++) {
         const call = calls[i] as AggregateCall;
-        const at = base + i;
+        const c = group * nCounts + (countAt[i] as number);
         if (call.arg === null) {
-          counts[at] = (counts[at] as number) + 1;
+          counts[c] = (counts[c] as number) + 1;
           continue;
         }
         const v = call.arg.evaluate(row);
+        const at = group * nValues + (valueAt[i] as number);
         if (call.fn === "first") {
           if (first) values[at] = v;
           continue;
@@ -64,39 +78,41 @@ export function createGroupTable(calls: readonly AggregateCall[]): GroupTable {
         if (v === null) continue;
         switch (call.fn) {
           case "count":
-            counts[at] = (counts[at] as number) + 1;
+            counts[c] = (counts[c] as number) + 1;
             break;
           case "sum": {
             const x = valueToNumber(v);
             if (x === null) break;
-            const s = scales[at] as number;
+            const m = group * nSums + (sumAt[i] as number);
+            const s = scales[m] as number;
             if (s >= 0) {
               const sx = scaleOf(x);
-              scales[at] = sx < 0 ? -1 : Math.max(s, sx);
+              scales[m] = sx < 0 ? -1 : Math.max(s, sx);
             }
-            sums[at] = (counts[at] === 0 ? 0 : (sums[at] as number)) + x;
-            counts[at] = (counts[at] as number) + 1;
+            sums[m] = (counts[c] === 0 ? 0 : (sums[m] as number)) + x;
+            counts[c] = (counts[c] as number) + 1;
             break;
           }
           case "min":
           case "max": {
             const prev = values[at] as Value;
-            const c = prev === null ? null : compareValues(v, prev);
-            if (prev === null || (c !== null && (call.fn === "min" ? c < 0 : c > 0))) values[at] = v;
+            const cmp = prev === null ? null : compareValues(v, prev);
+            if (prev === null || (cmp !== null && (call.fn === "min" ? cmp < 0 : cmp > 0))) values[at] = v;
             break;
           }
         }
       }
     },
     results(group) {
-      const base = group * n;
-      const out: Value[] = new Array<Value>(n);
-      for (let i = 0; i < n; i++) {
+      const out: Value[] = new Array<Value>(calls.length);
+      for (let i = 0; i < calls.length; i++) {
         const call = calls[i] as AggregateCall;
-        const at = base + i;
-        if (call.fn === "count") out[i] = counts[at] ?? 0;
-        else if (call.fn === "sum") out[i] = (counts[at] ?? 0) === 0 ? null : snap(sums[at] as number, scales[at] as number);
-        else out[i] = values[at] ?? null;
+        const c = group * nCounts + (countAt[i] as number);
+        if (call.fn === "count") out[i] = counts[c] ?? 0;
+        else if (call.fn === "sum") {
+          const m = group * nSums + (sumAt[i] as number);
+          out[i] = (counts[c] ?? 0) === 0 ? null : snap(sums[m] as number, scales[m] as number);
+        } else out[i] = values[group * nValues + (valueAt[i] as number)] ?? null;
       }
       return out;
     },
