@@ -1,7 +1,9 @@
 import { stat } from "node:fs/promises";
+import { availableParallelism } from "node:os";
 import type { Plan } from "./contract/plan.js";
 import { runPlan } from "./engine/run.js";
-import { openDelivery } from "./input/index.js";
+import { openDelivery, type Delivery, type InputOptions } from "./input/index.js";
+import { openDeliveryInThread, parseThreadAvailable } from "./input/parse-thread.js";
 import type { Result } from "./problem.js";
 import { buildReport } from "./report/build.js";
 import type { DeliveryReport, Level } from "./report/model.js";
@@ -15,6 +17,11 @@ export interface CheckOptions {
   readonly failOn?: Level;
   /** Summarise every column (for the HTML report). */
   readonly profile?: boolean;
+  /**
+   * Read and parse on a second thread while the checks run on this one: `auto` (the default) does for
+   * files of PARSE_THREAD_MIN_BYTES or more on a machine with two or more cores.
+   */
+  readonly parseThread?: "auto" | "on" | "off";
   /** Told after each batch: rows so far, raw bytes read so far. */
   readonly onProgress?: (rows: number, bytesRead: number) => void;
 }
@@ -27,15 +34,17 @@ export async function checkFile(plan: Plan, file: string, options: CheckOptions)
   if (plan.input.format === "xlsx") {
     return { ok: false, problems: [{ file: options.contractPath, message: "input format xlsx is not supported yet; export the sheet as CSV" }] };
   }
-  const opened = await openDelivery(file, {
+  const input: InputOptions = {
     format: plan.input.format,
     delimiter: plan.input.delimiter,
     ...(plan.input.format === "tsv" ? {} : { quote: plan.input.quote }),
     encoding: plan.input.encoding,
-  });
+  };
+  const onDisk = (await stat(file).catch(() => undefined))?.size;
+  const opened = useParseThread(options.parseThread ?? "auto", onDisk) ? await openDeliveryInThread(file, input) : await openDelivery(file, input);
   if (!opened.ok) return opened;
-  const delivery = opened.value;
-  const size = file.endsWith(".gz") ? undefined : (await stat(file).catch(() => undefined))?.size;
+  const delivery: Delivery = opened.value;
+  const size = file.endsWith(".gz") ? undefined : onDisk;
   const { rows, collector, profile } = await runPlan(plan, delivery.records, () => delivery.structureBreak(), {
     maxFindings: options.maxFindings ?? 1000,
     profile: options.profile === true,
@@ -55,4 +64,12 @@ export async function checkFile(plan: Plan, file: string, options: CheckOptions)
     },
   });
   return { ok: true, value: profile ? { ...report, profile } : report };
+}
+
+/** Below this size a second thread's start-up costs more than it saves. */
+export const PARSE_THREAD_MIN_BYTES = 8 * 1024 * 1024;
+
+function useParseThread(choice: "auto" | "on" | "off", bytes: number | undefined): boolean {
+  if (choice === "off" || !parseThreadAvailable()) return false;
+  return choice === "on" || (bytes !== undefined && bytes >= PARSE_THREAD_MIN_BYTES && availableParallelism() >= 2);
 }

@@ -16,7 +16,7 @@ import { parseReportTargets, writeReports } from "./reports.js";
 import { findRoot, reportPath } from "./root.js";
 
 export const CHECK_USAGE =
-  "tablegate check [<file...>] [--contract <c>] [--report <format>=<path>]... [--max-findings N] [--fail-on error|warning] [--changed-since <git-rev>] [--require-contract]";
+  "tablegate check [<file...>] [--contract <c>] [--report <format>=<path>]... [--max-findings N] [--fail-on error|warning] [--changed-since <git-rev>] [--require-contract] [--parse-thread auto|on|off]";
 
 const OPTIONS = {
   contract: { type: "string", short: "c" },
@@ -25,6 +25,7 @@ const OPTIONS = {
   "fail-on": { type: "string" },
   "changed-since": { type: "string" },
   "require-contract": { type: "boolean" },
+  "parse-thread": { type: "string" },
 } as const;
 
 interface Job {
@@ -49,6 +50,8 @@ export async function check(argv: readonly string[], io: Io): Promise<number> {
   if (!/^\d+$/.test(values["max-findings"] ?? "0")) return badArgument(io, `invalid option --max-findings: expected a whole number, got ${JSON.stringify(values["max-findings"])}`);
   const failOn = values["fail-on"] ?? "error";
   if (failOn !== "error" && failOn !== "warning") return badArgument(io, `invalid option --fail-on: expected error or warning, got ${JSON.stringify(failOn)}`);
+  const parseThread = values["parse-thread"] ?? "auto";
+  if (parseThread !== "auto" && parseThread !== "on" && parseThread !== "off") return badArgument(io, `invalid option --parse-thread: expected auto, on or off, got ${JSON.stringify(parseThread)}`);
   const targets = parseReportTargets(values.report ?? []);
   if (!targets.ok) return badArgument(io, targets.message);
 
@@ -84,6 +87,7 @@ export async function check(argv: readonly string[], io: Io): Promise<number> {
       contractPath: job.contract,
       maxFindings,
       failOn: failOn as Level,
+      parseThread,
       profile: targets.value.some((t) => t.format === "html"),
       ...(progress
         ? {

@@ -93,15 +93,26 @@ export async function openDelivery(path: string, options: InputOptions): Promise
     }
   }
 
-  return ok({
-    records: records(),
-    structureBreak: () => broken,
-    bytesRead: () => bytes,
+  return ok(deliveryOf(records(), () => broken, () => bytes, () => summary));
+}
+
+/** A Delivery over records and the state its reader keeps; the summary exists once the records are read. */
+export function deliveryOf(
+  records: AsyncIterable<readonly RawRecord[]>,
+  structureBreak: () => StructureBreak | undefined,
+  bytesRead: () => number,
+  summary: () => DeliverySummary | undefined,
+): Delivery {
+  return {
+    records,
+    structureBreak,
+    bytesRead,
     summary: () => {
-      if (summary === undefined) throw new Error("summary() asked before the records were read");
-      return summary;
+      const s = summary();
+      if (s === undefined) throw new Error("summary() asked before the records were read");
+      return s;
     },
-  });
+  };
 }
 
 const noteOf = (note: string | undefined): { note?: string } => (note === undefined ? {} : { note });

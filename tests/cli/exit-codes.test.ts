@@ -49,6 +49,20 @@ describe("exit statuses", () => {
     noStack(r);
   });
 
+  it("2 for a --parse-thread value other than auto, on or off, naming the option", async () => {
+    const r = await runCli(["check", "d.csv", "--contract", "c.yaml", "--parse-thread", "2"], { "c.yaml": contract, "d.csv": clean });
+    expect({ code: r.code, lines: lines(r).length, stdout: r.stdout }).toEqual({ code: 2, lines: 1, stdout: "" });
+    expect(r.stderr).toContain("--parse-thread");
+  });
+
+  it("the same verdict with --parse-thread on, off or auto", async () => {
+    for (const mode of ["on", "off", "auto"]) {
+      const files = { "c.yaml": contract, "a.csv": clean, "b.csv": failing };
+      expect((await runCli(["check", "a.csv", "--contract", "c.yaml", "--parse-thread", mode], files)).code).toBe(0);
+      expect((await runCli(["check", "b.csv", "--contract", "c.yaml", "--parse-thread", mode], files)).code).toBe(1);
+    }
+  });
+
   it("2 for a missing delivery file: one line naming the file", async () => {
     const r = await runCli(["check", "missing.csv", "--contract", "c.yaml"], { "c.yaml": contract });
     expect({ code: r.code, lines: lines(r).length, stdout: r.stdout }).toEqual({ code: 2, lines: 1, stdout: "" });

@@ -19,6 +19,8 @@ export interface RunOptions {
   readonly readBack?: readonly string[];
   readonly env?: Readonly<Record<string, string | undefined>>;
   readonly stderrIsTty?: boolean;
+  /** The command line to run: the sources by default, or the built package's (tests/input/parse-thread). */
+  readonly run?: typeof run;
 }
 
 /** Files to lay out in the temporary project folder: relative path to content. */
@@ -39,7 +41,7 @@ export async function runCli(argv: readonly string[], files: FileSet = {}, optio
     }
     let stdout = "";
     let stderr = "";
-    const code = await run(argv, {
+    const code = await (options.run ?? run)(argv, {
       stdout: (s) => { stdout += s; },
       stderr: (s) => { stderr += s; },
       env: options.env ?? { NO_COLOR: "1" },

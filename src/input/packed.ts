@@ -1,0 +1,72 @@
+import type { RawRecord } from "./types.js";
+
+/**
+ * Records laid end to end for passing from the parse thread to the main one: every cell's text in
+ * one string, and a layout of numbers (per record: its cell count, its line, then each cell's length).
+ * One string and one transferable array cross the thread boundary, instead of an object per record
+ * and a string per cell.
+ */
+export interface PackedRecords {
+  readonly text: string;
+  readonly layout: Uint32Array;
+}
+
+/**
+ * Pack records from `from` on until their text reaches `budget` characters (at least one record);
+ * returns the packed records and the index after the last one packed. Appending builds a rope,
+ * flattened once when the message is sent.
+ */
+export function packRecords(records: readonly RawRecord[], from = 0, budget = Infinity): { packed: PackedRecords; next: number } {
+  let end = from;
+  let size = 0;
+  let chars = 0;
+  while (end < records.length && (end === from || chars < budget)) {
+    const cells = (records[end] as RawRecord).cells;
+    size += 2 + cells.length;
+    for (let c = 0; c < cells.length; c++) chars += (cells[c] as string).length;
+    end++;
+  }
+  const layout = new Uint32Array(size);
+  let text = "";
+  let at = 0;
+  for (let r = from; r < end; r++) {
+    const { cells, line } = records[r] as RawRecord;
+    layout[at++] = cells.length;
+    layout[at++] = line;
+    for (let c = 0; c < cells.length; c++) {
+      const cell = cells[c] as string;
+      layout[at++] = cell.length;
+      text += cell;
+    }
+  }
+  return { packed: { text, layout }, next: end };
+}
+
+/**
+ * A cut of the batch's text that does not keep the whole batch alive. V8 cuts strings of 13 or more
+ * characters as views into their parent, so a kept cell (a group's key, a finding's value) would pin
+ * the batch it came from; such cells are copied instead (a rope flattens into a new string of its own).
+ */
+function cut(text: string, from: number, to: number): string {
+  return to - from < 13 ? text.slice(from, to) : (" " + text.slice(from, to)).slice(1);
+}
+
+/** The records of a packed batch, as they were before packing. */
+export function unpackRecords(packed: PackedRecords): RawRecord[] {
+  const { text, layout } = packed;
+  const out: RawRecord[] = [];
+  let pos = 0;
+  let at = 0;
+  while (at < layout.length) {
+    const n = layout[at++] as number;
+    const line = layout[at++] as number;
+    const cells = new Array<string>(n);
+    for (let c = 0; c < n; c++) {
+      const len = layout[at++] as number;
+      cells[c] = cut(text, pos, pos + len);
+      pos += len;
+    }
+    out.push({ cells, line });
+  }
+  return out;
+}

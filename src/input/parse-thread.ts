@@ -1,0 +1,83 @@
+import { existsSync } from "node:fs";
+import { fileURLToPath } from "node:url";
+import { Worker } from "node:worker_threads";
+import { fail, ok, type Result } from "../problem.js";
+import { deliveryOf } from "./open.js";
+import { unpackRecords } from "./packed.js";
+import type { ParseJob, ParseMessage } from "./parse-thread-messages.js";
+import type { Delivery, DeliverySummary, InputOptions, RawRecord, StructureBreak } from "./types.js";
+
+const WORKER = new URL("./parse-worker.js", import.meta.url);
+
+/**
+ * True when the parse thread can start: its compiled script sits beside this module (it does in the
+ * built package, not when these sources run untranslated under a test runner).
+ */
+export function parseThreadAvailable(): boolean {
+  return WORKER.protocol === "file:" && existsSync(fileURLToPath(WORKER));
+}
+
+type Heard = ParseMessage | { readonly kind: "stopped"; readonly message: string };
+
+/**
+ * Opens a delivery whose reading, decoding and parsing run on a second thread while the caller checks
+ * the records: the same records, lines, structure break and summary as `openDelivery`, in the same order.
+ */
+export async function openDeliveryInThread(path: string, options: InputOptions): Promise<Result<Delivery>> {
+  const job: ParseJob = { path, options };
+  const worker = new Worker(WORKER, { workerData: job });
+  const heard: Heard[] = [];
+  let waiting: ((m: Heard) => void) | undefined;
+  let ended = false;
+  const hear = (m: Heard): void => {
+    if (waiting === undefined) heard.push(m);
+    else {
+      const w = waiting;
+      waiting = undefined;
+      w(m);
+    }
+  };
+  worker.on("message", (m: ParseMessage) => {
+    if (m.kind === "end" || m.kind === "failed") ended = true;
+    hear(m);
+  });
+  worker.on("error", (e: Error) => hear({ kind: "stopped", message: e.message }));
+  worker.on("exit", (code) => {
+    if (!ended) hear({ kind: "stopped", message: `it exited with code ${code}` });
+  });
+  const next = (): Promise<Heard> => {
+    const m = heard.shift();
+    return m === undefined ? new Promise((resolve) => (waiting = resolve)) : Promise.resolve(m);
+  };
+
+  const first = await next();
+  if (first.kind !== "opened") {
+    await worker.terminate();
+    if (first.kind === "failed") return { ok: false, problems: first.problems };
+    return fail({ file: path, message: `cannot be read: the parse thread stopped (${first.kind === "stopped" ? first.message : "unexpected message"})` });
+  }
+
+  let broken: StructureBreak | undefined;
+  let summary: DeliverySummary | undefined;
+  let bytes = 0;
+  async function* records(): AsyncGenerator<readonly RawRecord[]> {
+    try {
+      for (;;) {
+        const m = await next();
+        if (m.kind === "batch") {
+          worker.postMessage("taken");
+          bytes = m.bytesRead;
+          yield unpackRecords(m);
+        } else if (m.kind === "end") {
+          broken = m.structureBreak;
+          summary = m.summary;
+          return;
+        } else throw new Error(`the parse thread stopped while reading ${path}: ${m.kind === "stopped" ? m.message : m.kind}`);
+      }
+    } finally {
+      await worker.terminate();
+    }
+  }
+
+  return ok(deliveryOf(records(), () => broken, () => bytes, () => summary));
+}
