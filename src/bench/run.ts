@@ -1,4 +1,5 @@
 import { mkdir, mkdtemp, readFile, rm, writeFile } from "node:fs/promises";
+import { availableParallelism } from "node:os";
 import { join, resolve } from "node:path";
 import { fileURLToPath } from "node:url";
 import { parseArgs } from "node:util";
@@ -107,26 +108,31 @@ async function main(): Promise<number> {
       process.stdout.write(`run ${i + 1}/${runs}: bare ${fmt(b.wallMs / 1000, 2)} s, tablegate ${fmt(t.wallMs / 1000, 2)} s (exit ${String(t.code)})\n`);
     }
 
-    // One run without rules, groups and outliers shows what those cost on top of the column checks.
+    // Single runs for comparison: without rules, groups and outliers (what those cost on top of the
+    // column checks), and with reading and parsing kept on the main thread (what the parse thread saves).
     const stripped = join(scratch, "dealer-sales-columns-only.contract.yaml");
     const doc = parseDocument(await readFile(join(ROOT, CONTRACT), "utf8"));
     for (const key of ["rules", "groups", "outliers"]) doc.delete(key);
     await writeFile(stripped, String(doc));
-    const colsReport = join(scratch, "r-columns.json");
-    const cols = await measure({ script: CLI, args: checkArgs(gen.path, stripped, colsReport), cwd: ROOT, probe: PROBE, scratch });
-    const colsRan = !failedToRun(cols, [0, 1]) && (await failedByRule(colsReport)) !== undefined;
-    const columnsOnly: Series = { label: "tablegate, no rules/groups/outliers", runs: colsRan ? [cols] : [] };
+    const single = async (label: string, contract: string, extra: readonly string[]): Promise<{ series: Series; note?: string }> => {
+      const out = join(scratch, "r-single.json");
+      await rm(out, { force: true });
+      const m = await measure({ script: CLI, args: [...checkArgs(gen.path, contract, out), ...extra], cwd: ROOT, probe: PROBE, scratch });
+      const ran = !failedToRun(m, [0, 1]) && (await failedByRule(out)) !== undefined;
+      return ran ? { series: { label, runs: [m] } } : { series: { label, runs: [] }, note: `${label}: did not run (${explain("", m).trim()})` };
+    };
+    const columnsOnly = await single("tablegate, no rules/groups/outliers", stripped, []);
+    const oneThread = await single("tablegate, --parse-thread off", CONTRACT, ["--parse-thread", "off"]);
 
     const header = `${"".padEnd(34)}${"median".padStart(10)}${"rows/s".padStart(12)}${"MB/s".padStart(9)}${"peak RSS".padStart(11)}`;
     const lines = [
       "",
-      `rows ${fmt(rows)}, file ${fmt(gen.bytes / 1e6, 1)} MB, ${runs} interleaved runs each, node ${process.version}`,
+      `rows ${fmt(rows)}, file ${fmt(gen.bytes / 1e6, 1)} MB, ${runs} interleaved runs each, node ${process.version}, ${availableParallelism()} cores`,
       header,
       row(bare, gen),
       row(full, gen),
     ];
-    if (columnsOnly.runs.length > 0) lines.push(row(columnsOnly, gen));
-    else lines.push(`${columnsOnly.label}: did not run (${explain("", cols).trim()})`);
+    for (const one of [oneThread, columnsOnly]) lines.push(one.note ?? row(one.series, gen));
     const ratio = median(full.runs.map((r) => r.wallMs)) / median(bare.runs.map((r) => r.wallMs));
     lines.push(`ratio tablegate / bare csv-parse (median wall time): ${fmt(ratio, 2)}`);
     const cpu = (s: readonly Measurement[]) => median(s.map((r) => r.cpuMs ?? Number.NaN));
@@ -134,8 +140,13 @@ async function main(): Promise<number> {
     if (Number.isFinite(cpuRatio)) {
       lines.push(`ratio by CPU time (user + system, median; steadier on a shared machine): ${fmt(cpuRatio, 2)} (${fmt(cpu(full.runs) / 1000, 2)} s against ${fmt(cpu(bare.runs) / 1000, 2)} s)`);
     }
-    if (columnsOnly.runs.length > 0) {
-      const share = 1 - (columnsOnly.runs[0]?.wallMs ?? 0) / median(full.runs.map((r) => r.wallMs));
+    const columnsRun = columnsOnly.series.runs[0];
+    const oneThreadRun = oneThread.series.runs[0];
+    if (oneThreadRun !== undefined) {
+      lines.push(`with reading and parsing on the main thread (--parse-thread off): ratio ${fmt(oneThreadRun.wallMs / median(bare.runs.map((r) => r.wallMs)), 2)} (one run, indicative)`);
+    }
+    if (columnsRun !== undefined) {
+      const share = 1 - columnsRun.wallMs / median(full.runs.map((r) => r.wallMs));
       lines.push(`rules, groups and outliers take about ${fmt(share * 100, 0)}% of tablegate's time (one run, indicative)`);
     }
 
