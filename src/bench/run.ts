@@ -138,7 +138,7 @@ async function main(): Promise<number> {
     const cpu = (s: readonly Measurement[]) => median(s.map((r) => r.cpuMs ?? Number.NaN));
     const cpuRatio = cpu(full.runs) / cpu(bare.runs);
     if (Number.isFinite(cpuRatio)) {
-      lines.push(`ratio by CPU time (user + system, median; steadier on a shared machine): ${fmt(cpuRatio, 2)} (${fmt(cpu(full.runs) / 1000, 2)} s against ${fmt(cpu(bare.runs) / 1000, 2)} s)`);
+      lines.push(`ratio of CPU time, all threads (user + system, median; the work done, where wall time is the wait): ${fmt(cpuRatio, 2)} (${fmt(cpu(full.runs) / 1000, 2)} s against ${fmt(cpu(bare.runs) / 1000, 2)} s)`);
     }
     const columnsRun = columnsOnly.series.runs[0];
     const oneThreadRun = oneThread.series.runs[0];
