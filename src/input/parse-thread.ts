@@ -1,8 +1,8 @@
 import { existsSync } from "node:fs";
 import { fileURLToPath } from "node:url";
 import { Worker } from "node:worker_threads";
-import { fail, ok, type Result } from "../problem.js";
-import { deliveryOf } from "./open.js";
+import { ok, type Result } from "../problem.js";
+import { deliveryOf, openDelivery } from "./open.js";
 import { unpackRecords } from "./packed.js";
 import type { ParseJob, ParseMessage } from "./parse-thread-messages.js";
 import type { Delivery, DeliverySummary, InputOptions, RawRecord, StructureBreak } from "./types.js";
@@ -25,7 +25,12 @@ type Heard = ParseMessage | { readonly kind: "stopped"; readonly message: string
  */
 export async function openDeliveryInThread(path: string, options: InputOptions): Promise<Result<Delivery>> {
   const job: ParseJob = { path, options };
-  const worker = new Worker(WORKER, { workerData: job });
+  let worker: Worker;
+  try {
+    worker = new Worker(WORKER, { workerData: job });
+  } catch {
+    return openDelivery(path, options); // no thread to be had: see below
+  }
   const heard: Heard[] = [];
   let waiting: ((m: Heard) => void) | undefined;
   let ended = false;
@@ -54,7 +59,9 @@ export async function openDeliveryInThread(path: string, options: InputOptions):
   if (first.kind !== "opened") {
     await worker.terminate();
     if (first.kind === "failed") return { ok: false, problems: first.problems };
-    return fail({ file: path, message: `cannot be read: the parse thread stopped (${first.kind === "stopped" ? first.message : "unexpected message"})` });
+    // A thread that cannot start (a sandbox without workers, no memory for a second heap) costs
+    // speed, not the check: read on this thread instead.
+    return openDelivery(path, options);
   }
 
   let broken: StructureBreak | undefined;
