@@ -72,18 +72,40 @@ export function problemAt(src: YamlSource, path: YamlPath, message: string, opti
 
 /**
  * Map a character offset in a scalar's value to an offset in the file. The value differs from its
- * source by quotes, escapes, folding and indentation, so align the two greedily character by character.
+ * source by quotes, escapes, folding and indentation, so align the two greedily character by character;
+ * in a double-quoted scalar an escape (`\t`, `\x41`, `\u00e9`, `\U0001F3D5`) stands for one
+ * character of the value, and an escaped line break for none (YAML 1.2 section 5.7).
  */
 function sourceOffsetInScalar(text: string, start: number, end: number, value: string, offset: number): number {
   let p = start;
   const first = text[p];
-  if (first === "'" || first === '"') p++;
+  const double = first === '"';
+  if (first === "'" || double) p++;
   else if (first === "|" || first === ">") p = text.indexOf("\n", p) + 1 || p;
   for (let i = 0; i < value.length && p < end; i++) {
+    if (double) p = skipEscapedBreaks(text, p, end);
+    if (double && text[p] === "\\") {
+      if (i === offset) return p;
+      const e = text[p + 1];
+      const digits = e === "x" ? 2 : e === "u" ? 4 : e === "U" ? 8 : 0;
+      // Beyond the BMP the value holds the character as two UTF-16 units.
+      if (digits === 8 && Number.parseInt(text.slice(p + 2, p + 10), 16) > 0xffff) i++;
+      p += 2 + digits;
+      continue;
+    }
     const c = value[i];
     while (p < end && text[p] !== c && !(c === " " && (text[p] === "\n" || text[p] === " "))) p++;
     if (i === offset) return Math.min(p, end);
     p++;
   }
   return Math.min(p, end);
+}
+
+/** Past any backslash-newline continuations at `p` and the indentation after each. */
+function skipEscapedBreaks(text: string, p: number, end: number): number {
+  while (p < end && text[p] === "\\" && (text[p + 1] === "\n" || text[p + 1] === "\r")) {
+    p += text[p + 1] === "\r" && text[p + 2] === "\n" ? 3 : 2;
+    while (p < end && (text[p] === " " || text[p] === "\t")) p++;
+  }
+  return p;
 }

@@ -59,6 +59,17 @@ const cases: readonly BrokenCase[] = [
     at: [[7, 20]],
   },
   {
+    // YAML 1.2 section 5.7: each escape is one character of the value, however many it takes in the file.
+    name: "bad expression, double-quoted scalar with escapes before the fault (\\t, \\x41, \\u00e9, \\U0001F3D5)",
+    contract: head + 'columns:\n  qty: { type: integer }\n  code: { type: text }\nrules:\n  - id: r1\n    assert: "code <> \'\\t\\x41\\u00e9\\U0001F3D5\' AND qty >> 3"\n',
+    at: [[8, 56]],
+  },
+  {
+    name: "bad expression, double-quoted scalar continued after an escaped line break",
+    contract: head + 'columns:\n  qty: { type: integer }\nrules:\n  - id: r1\n    assert: "qty > 0 AND \\\n      qty >> 3"\n',
+    at: [[8, 12]],
+  },
+  {
     name: "bad expression, single-quoted scalar with '' escapes before the fault",
     contract: head + "columns:\n  qty: { type: integer }\n  code: { type: text }\nrules:\n  - id: r1\n    assert: 'code = ''A'' AND qty = = 1'\n",
     at: [[8, 37]],
