@@ -1,5 +1,5 @@
 /**
- * Arithmetic on values: NULL in, NULL out (ISO/IEC 9075). Numbers add and multiply as SQL DECIMAL
+ * Arithmetic on values: NULL in, NULL out (ISO/IEC 9075). Numbers add, multiply and divide as SQL DECIMAL
  * (see decimal.ts). A date plus or minus a whole number of days is a date; date minus date is days;
  * timestamps shift by (fractional) days and subtract to days; time minus time is days too. Division
  * or remainder by zero gives NULL where SQL raises an error: a data check reports, it does not stop.
@@ -8,7 +8,7 @@
 import { dateValue, timestampValue, type Value } from "../values.js";
 import { textToNumber } from "./coerce.js";
 import { MS_PER_DAY } from "./dates.js";
-import { decimalAdd, decimalMul, decimalSub, scaleOf } from "./decimal.js";
+import { decimalAdd, decimalDiv, decimalMul, decimalSub, scaleOf } from "./decimal.js";
 
 const num = (v: Value): number | null => (typeof v === "number" ? v : typeof v === "string" ? textToNumber(v) : null);
 
@@ -57,11 +57,11 @@ export function multiply(a: Value, b: Value): Value {
   return x === null || y === null ? null : decimalMul(x, y);
 }
 
-/** a / b; NULL when b is zero. */
+/** a / b, exact for decimals whose quotient ends (see decimal.ts); NULL when b is zero. */
 export function divide(a: Value, b: Value): Value {
   const x = num(a);
   const y = num(b);
-  return x === null || y === null || y === 0 ? null : x / y;
+  return x === null || y === null || y === 0 ? null : decimalDiv(x, y);
 }
 
 /** a % b with the sign of a (as SQL MOD); NULL when b is zero. */

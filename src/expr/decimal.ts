@@ -53,6 +53,22 @@ export function decimalMul(a: number, b: number): number {
 }
 
 /**
+ * a / b, exact when the quotient of two decimals ends within 15 decimals (0.15 / 3 = 0.05, as SQL's
+ * DECIMAL division gives); a quotient that does not end (1 / 3) stays the double. The shortest scale
+ * at which the quotient times `b` gives back `a` exactly is the quotient's own scale.
+ */
+export function decimalDiv(a: number, b: number): number {
+  const r = a / b;
+  if (!Number.isFinite(r) || Number.isInteger(r)) return r;
+  if (scaleOf(a) < 0 || scaleOf(b) < 0) return r;
+  for (let k = 1; k <= MAX_SCALE; k++) {
+    const q = snap(r, k);
+    if (decimalMul(q, b) === a) return q;
+  }
+  return r;
+}
+
+/**
  * `x` rounded to `digits` decimals (negative: tens, hundreds...), half away from zero, deciding ties on
  * the decimal the number stands for: round(2.675, 2) = 2.68 although the double 2.675 lies just below.
  */

@@ -42,6 +42,16 @@ describe("arithmetic", () => {
     ["-7 % 3 = -1"], // sign of the dividend, as SQL MOD
     ["7 / 2 = 3.5"], // exact division, not integer division
     ["1 / 3 * 3 = 1"],
+    // Exact quotients of decimals, as SQL DECIMAL division gives them; in plain doubles the first is
+    // 0.049999999999999996 and the second 0.19999999999999998.
+    ["0.15 / 3 = 0.05"],
+    ["0.21 / 1.05 = 0.2"],
+    ["0.84 / 12 = 0.07"],
+    ["100.01 / 5 = 20.002"],
+    ["0.6 / 3.0 = 0.2"],
+    ["1 / 8 = 0.125"],
+    // A quotient that does not end is not cut short to look like a decimal.
+    ["1 / 3 <> 0.333333333333333"],
     ["2 + 3 * 4 - 6 / 2 = 11"],
     ["-(2 + 3) = -5"],
   ])("%s", (e) => {
