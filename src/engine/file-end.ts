@@ -6,6 +6,7 @@ import type { Value } from "../values.js";
 import type { Collector } from "./collector.js";
 import { createU32List, type U32List } from "./growable.js";
 import { createRowHasher } from "./row-hash.js";
+import { joinParts, keyPart, splitParts } from "./key-text.js";
 import { createSeenSet, type SeenSet } from "./seen-set.js";
 import { shownValue } from "./shown.js";
 
@@ -60,13 +61,21 @@ export function createFileEnd(plan: Plan, out: Collector) {
   let checked = 0;
 
   const hasher = createRowHasher();
-  // The key is the trimmed texts as given; masking of sensitive parts happens only when a group is reported.
-  const groupKey = (g: GroupPlan, texts: readonly string[]): string => {
-    if (g.by.length === 1) return texts[g.by[0] as number] as string;
-    let key = "";
-    for (let i = 0; i < g.by.length; i++) key += (i === 0 ? "" : "\u001f") + (texts[g.by[i] as number] as string);
-    return key;
+  // Groups form on typed values, as SQL GROUP BY over typed columns and as keys compare (`01001` and
+  // `1001` in an integer column are one employee). Several parts join length-prefixed, so no cell
+  // text can make two different keys join alike.
+  const parts: string[] = [];
+  const groupKey = (g: GroupPlan, values: readonly Value[], texts: readonly string[], states: CellStates): string => {
+    parts.length = g.by.length;
+    for (let i = 0; i < g.by.length; i++) {
+      const c = g.by[i] as number;
+      parts[i] = keyPart(values[c] as Value, texts[c] as string, states[c] as number);
+    }
+    return g.by.length === 1 ? (parts[0] as string) : joinParts(parts);
   };
+  // What a group shows: its first row's trimmed texts (masked only when reported).
+  const shownKey = (g: GroupPlan, texts: readonly string[]): string =>
+    g.by.length === 1 ? (texts[g.by[0] as number] as string) : joinParts(g.by.map((c) => texts[c] as string));
 
   return {
     /** A record not checked (wrong width): only its line is remembered. */
@@ -83,16 +92,16 @@ export function createFileEnd(plan: Plan, out: Collector) {
       }
       for (const g of groups) {
         if (g.plan.when !== undefined && !isTrue(g.plan.when.evaluate(values))) continue;
-        const key = groupKey(g.plan, texts);
+        const key = groupKey(g.plan, values, texts, states);
         let at = g.recent;
         if (key !== g.recentKey) {
           hasher.reset();
-          for (const c of g.plan.by) hasher.add(texts[c] as string);
+          for (const part of parts) hasher.add(part);
           const known = g.index.firstOrAdd(hasher.hi, hasher.lo, g.keys.length + 1);
           if (known !== 0) at = known - 1;
           else {
             at = g.keys.length;
-            g.keys.push(key);
+            g.keys.push(shownKey(g.plan, texts));
             g.firstRow.push(rowNo);
             g.firstLine.push(line);
             if (at >= g.rows.length) {
@@ -120,9 +129,9 @@ export function createFileEnd(plan: Plan, out: Collector) {
           const firstRow = g.firstRow.at(at);
           if (!out.fail(g.plan.check, firstRow)) continue;
           const results = g.table.results(at);
-          const parts = (g.keys[at] ?? "").split("\u001f");
+          const texts = g.plan.by.length === 1 ? [g.keys[at] ?? ""] : splitParts(g.keys[at] ?? "");
           const key = names
-            .map((nm, i) => `${nm}=${parts[i] === "" ? "(blank)" : shownValue(parts[i] ?? "", plan.columns[g.plan.by[i] ?? 0]?.sensitive === true)}`)
+            .map((nm, i) => `${nm}=${texts[i] === "" ? "(blank)" : shownValue(texts[i] ?? "", plan.columns[g.plan.by[i] ?? 0]?.sensitive === true)}`)
             .join(", ");
           const shown = g.plan.assert.aggregates.map((a, i) => `${a.fn}(${a.arg?.source ?? ""})=${formatValue(results[i] ?? null)}`).join(", ");
           const count = g.rows[at] ?? 0;

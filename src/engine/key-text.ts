@@ -7,3 +7,31 @@ export function keyText(v: Value, text: string): string {
   if (v === null) return "";
   return v.kind === "date" ? `d${v.days}` : v.kind === "timestamp" ? `t${v.ms}` : `s${v.seconds}`;
 }
+
+/**
+ * One part of a key or group key from a cell in its state (0 parsed, 1 blank, 2 not of its type,
+ * 3 absent): a parsed value as keyText gives it, a cell of the wrong type as its text marked with a
+ * leading NUL (so it never equals a value's keyText, such as a date's `d19000`), a blank as "".
+ */
+export function keyPart(v: Value, text: string, state: number): string {
+  return state === 0 ? keyText(v, text) : state === 2 ? `\u0000${text}` : "";
+}
+
+/** Parts joined so that no two different lists join alike: each part preceded by its length. */
+export function joinParts(parts: readonly string[]): string {
+  let out = "";
+  for (const p of parts) out += `${p.length}:${p}`;
+  return out;
+}
+
+/** The parts `joinParts` joined. */
+export function splitParts(joined: string): string[] {
+  const parts: string[] = [];
+  for (let at = 0; at < joined.length; ) {
+    const colon = joined.indexOf(":", at);
+    const len = Number(joined.slice(at, colon));
+    parts.push(joined.slice(colon + 1, colon + 1 + len));
+    at = colon + 1 + len;
+  }
+  return parts;
+}

@@ -8,7 +8,7 @@ import { createFileEnd } from "./file-end.js";
 import { matchHeader, positional, type HeaderMatch } from "./header.js";
 import { createProfiler } from "./profile.js";
 import { createU32List } from "./growable.js";
-import { keyText } from "./key-text.js";
+import { keyPart } from "./key-text.js";
 import { createRowHasher } from "./row-hash.js";
 import { createSeenSet, type SeenSet } from "./seen-set.js";
 import { cellValue, shownValue } from "./shown.js";
@@ -166,7 +166,7 @@ export async function runPlan(plan: Plan, batches: AsyncIterable<readonly RawRec
       let complete = true;
       for (const c of key.columns) {
         if (state[c] !== 0 && state[c] !== 2) complete = false;
-        hasher.add(state[c] === 0 ? keyText(values[c] as Value, texts[c] as string) : (texts[c] as string));
+        hasher.add(keyPart(values[c] as Value, texts[c] as string, state[c] as number));
       }
       if (!complete) {
         if (k === 0) firstKey = -1;

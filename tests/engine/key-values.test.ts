@@ -1,7 +1,7 @@
 /**
- * Pending: keys on typed columns. SPEC §1.1 says cells are trimmed before every check but not whether
- * a key compares text or parsed values. A SQL UNIQUE constraint on an INTEGER column (ISO/IEC 9075)
- * compares values, so 01 and 1 collide; the engine compares the trimmed text today.
+ * Keys on typed columns. SPEC §1.1 says cells are trimmed before every check but not whether a key
+ * compares text or parsed values. A SQL UNIQUE constraint on an INTEGER column (ISO/IEC 9075) compares
+ * values, so 01 and 1 collide; so do they here.
  */
 import { describe, it } from "vitest";
 import { checkJson } from "../helpers/cli.js";

@@ -1,0 +1,60 @@
+/**
+ * Groups form on typed values, as SQL GROUP BY over typed columns does (ISO/IEC 9075: rows whose
+ * grouping values are equal belong to one group, and equality of INTEGER or DATE values is by value),
+ * and as keys compare: `01001` and `1001` in an integer column are one employee.
+ */
+import { describe, expect, it } from "vitest";
+import { checkJson } from "../helpers/cli.js";
+
+const failedOf = (report: { checks: readonly { rule: string; failed: number }[] }, rule: string) => report.checks.find((c) => c.rule === rule)?.failed;
+
+describe("group keys", () => {
+  const payroll = [
+    "tablegate: 1",
+    "name: payroll",
+    "columns:",
+    "  employee_no: { type: integer }",
+    '  pay_date: { type: date, format: ["%Y-%m-%d", "%d/%m/%Y"] }',
+    "  gross: { type: decimal }",
+    "  period_gross: { type: decimal }",
+    "groups:",
+    "  - id: balance",
+    "    by: [employee_no]",
+    "    assert: sum(gross) = first(period_gross)",
+    "  - id: runs",
+    "    by: [pay_date]",
+    "    assert: count() = 3",
+    "",
+  ].join("\n");
+
+  it("one group for an integer written 1001 and 01001, and for one date in two formats", async () => {
+    const data = "employee_no,pay_date,gross,period_gross\n1001,2026-03-31,2400.00,4150.00\n01001,31/03/2026,1750.00,4150.00\n1002,2026-03-31,2000.00,2000.00\n";
+    const { report, code } = await checkJson(payroll, data);
+    expect({ code, balance: failedOf(report, "group:balance"), runs: failedOf(report, "group:runs") }).toEqual({ code: 0, balance: 0, runs: 0 });
+  });
+
+  it("a failing group is reported on its first row, showing that row's text", async () => {
+    const data = "employee_no,pay_date,gross,period_gross\n01001,2026-03-31,2400.00,4150.00\n1001,2026-03-31,1000.00,4150.00\n1002,2026-03-31,2000.00,2000.00\n";
+    const { report } = await checkJson(payroll, data);
+    const found = report.findings.filter((f) => f.rule === "group:balance");
+    expect(found.map((f) => ({ row: f.row, line: f.line, value: f.value }))).toEqual([{ row: 1, line: 2, value: "employee_no=01001" }]);
+  });
+
+  it("parts that contain any character, U+001F included, never join into another group's key", async () => {
+    const contract = "tablegate: 1\nname: bins\ncolumns:\n  warehouse: { type: text }\n  bin: { type: text }\ngroups:\n  - id: one-line-per-bin\n    by: [warehouse, bin]\n    assert: count() = 1\n";
+    for (const sep of ["\u001f", ":", "1:", "\u0000"]) {
+      const data = `warehouse,bin\nnorth${sep}A,7\nnorth,A${sep}7\n`;
+      const { report, code } = await checkJson(contract, data);
+      expect({ sep, code, failed: failedOf(report, "group:one-line-per-bin") }).toEqual({ sep, code: 0, failed: 0 });
+    }
+  });
+
+  it("a cell that fails its type groups apart from every value, blank cells together", async () => {
+    const contract = "tablegate: 1\nname: days\ncolumns:\n  day: { type: date }\n  n: { type: integer }\ngroups:\n  - id: one-per-day\n    by: [day]\n    assert: count() = 1\n    level: note\n";
+    // 2026-01-01 is day 20454 after 1970-01-01 (Date.UTC(2026, 0, 1) / 86400000).
+    expect(Date.UTC(2026, 0, 1) / 86_400_000).toBe(20454);
+    const { report } = await checkJson(contract, "day,n\n2026-01-01,1\nd20454,2\n,3\n,4\n");
+    const found = report.findings.filter((f) => f.rule === "group:one-per-day");
+    expect(found.map((f) => f.row)).toEqual([3]);
+  });
+});
