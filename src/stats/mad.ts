@@ -1,3 +1,5 @@
+import { decimalDiv, scaleOf } from "../expr/decimal.js";
+import { atScale, columnScale } from "./column-scale.js";
 import { medianSorted, sortedCopy } from "./quantile.js";
 
 /**
@@ -29,32 +31,47 @@ export interface MadScale {
    * when every value is equal, 0 for that value and ±Infinity for any other.
    */
   score(x: number): number;
+  /**
+   * True when |score(x)| > threshold, decided without dividing: 0.6745·|x − median| > threshold·MAD
+   * (or |x − median| > threshold·1.253314·MeanAD), in exact decimals when the column is decimal, so
+   * a score equal to the threshold is not beyond it.
+   */
+  beyond(x: number, threshold: number): boolean;
 }
 
 /** Median, MAD and a modified z-score function for the values; undefined when there are none. */
 export function madScores(values: Float64Array): MadScale | undefined {
   const n = values.length;
   if (n === 0) return undefined;
+  // Decimals of the column, its median (a midpoint: one more) and its MAD (a midpoint of those: two more).
+  const s = columnScale(values);
+  const sMedian = s < 0 ? -1 : s + 1;
+  const sMad = s < 0 ? -1 : s + 2;
   // one scratch buffer: sorted values, then overwritten in place by the absolute deviations
   const scratch = sortedCopy(values);
-  const median = medianSorted(scratch);
-  let sum = 0;
-  for (let i = 0; i < n; i++) {
-    const d = Math.abs((scratch[i] as number) - median);
-    scratch[i] = d;
-    sum += d;
-  }
+  const median = atScale(medianSorted(scratch), sMedian);
+  for (let i = 0; i < n; i++) scratch[i] = atScale(Math.abs((scratch[i] as number) - median), sMedian);
   scratch.sort();
-  const mad = medianSorted(scratch);
-  const meanAd = sum / n;
+  const mad = atScale(medianSorted(scratch), sMad);
+  const deviation = (x: number): number => atScale(Math.abs(x - median), sMedian);
+  /** a·b > c·d, each product at the scale its decimal factors give it. */
+  const exceeds = (a: number, b: number, c: number, d: number): boolean => {
+    const sa = scaleOf(a);
+    const sc = scaleOf(c);
+    const left = sa < 0 || sMedian < 0 ? a * b : atScale(a * b, sa + sMedian);
+    const right = sc < 0 || scaleOf(d) < 0 ? c * d : atScale(c * d, sc + scaleOf(d));
+    return left > right;
+  };
 
   if (mad > 0) {
     const factor = MAD_CONSTANT / mad;
-    return { median, mad, meanAd, basis: "mad", score: (x) => (x - median) * factor };
+    return { median, mad, meanAd: meanDeviation(scratch, sMedian), basis: "mad", score: (x) => (x - median) * factor, beyond: (x, t) => exceeds(MAD_CONSTANT, deviation(x), t, mad) };
   }
+  const meanAd = meanDeviation(scratch, sMedian);
   if (meanAd > 0) {
     const divisor = MEAN_AD_CONSTANT * meanAd;
-    return { median, mad, meanAd, basis: "mean-ad", score: (x) => (x - median) / divisor };
+    const limit = (t: number) => atScale(t * MEAN_AD_CONSTANT, scaleOf(t) < 0 ? -1 : scaleOf(t) + 6);
+    return { median, mad, meanAd, basis: "mean-ad", score: (x) => (x - median) / divisor, beyond: (x, t) => exceeds(1, deviation(x), limit(t), meanAd) };
   }
   return {
     median,
@@ -62,5 +79,13 @@ export function madScores(values: Float64Array): MadScale | undefined {
     meanAd,
     basis: "constant",
     score: (x) => (x === median ? 0 : x > median ? Infinity : -Infinity),
+    beyond: (x) => x !== median,
   };
+}
+
+/** The mean of the (non-negative) deviations, exact when their sum over n ends as a decimal. */
+function meanDeviation(deviations: Float64Array, scale: number): number {
+  let sum = 0;
+  for (let i = 0; i < deviations.length; i++) sum += deviations[i] as number;
+  return decimalDiv(atScale(sum, scale), deviations.length);
 }

@@ -86,8 +86,8 @@ export function findOutliers(column: FloatColumnView, spec: OutlierMethod): Outl
     if (scale) {
       for (let i = 0; i < n; i++) {
         const value = values[i] as number;
+        if (!scale.beyond(value, threshold)) continue;
         const score = scale.score(value);
-        if (!(Math.abs(score) > threshold)) continue;
         count++;
         if (outliers.length < keep) outliers.push({ row: rows[i] as number, value, score });
       }

@@ -1,3 +1,5 @@
+import { scaleOf } from "../expr/decimal.js";
+import { atScale, columnScale } from "./column-scale.js";
 import { quantileSorted, sortedCopy } from "./quantile.js";
 
 /** Tukey's fences for one column: quartiles by Hyndman & Fan type 7, fences at Q1 − k·IQR and Q3 + k·IQR. */
@@ -9,13 +11,21 @@ export interface TukeyFences {
   readonly high: number;
 }
 
-/** Tukey's fences from already sorted values; undefined when empty. */
+/**
+ * Tukey's fences from already sorted values; undefined when empty. For a column of decimals the
+ * quartiles (interpolated in quarters: 2 more decimals), the IQR and the fences (k's decimals more)
+ * are exact decimals, so a value on a fence is on it, not a rounding error outside.
+ */
 export function tukeyFencesSorted(sorted: Float64Array, k: number): TukeyFences | undefined {
   if (sorted.length === 0) return undefined;
-  const q1 = quantileSorted(sorted, 0.25);
-  const q3 = quantileSorted(sorted, 0.75);
-  const iqr = q3 - q1;
-  return { q1, q3, iqr, low: q1 - k * iqr, high: q3 + k * iqr };
+  const s = columnScale(sorted);
+  const quartile = s < 0 ? -1 : s + 2;
+  const fence = quartile < 0 || scaleOf(k) < 0 ? -1 : quartile + scaleOf(k);
+  const q1 = atScale(quantileSorted(sorted, 0.25), quartile);
+  const q3 = atScale(quantileSorted(sorted, 0.75), quartile);
+  const iqr = atScale(q3 - q1, quartile);
+  const spread = atScale(k * iqr, fence);
+  return { q1, q3, iqr, low: atScale(q1 - spread, fence), high: atScale(q3 + spread, fence) };
 }
 
 /** Tukey's fences at multiplier k (1.5 inner, 3 outer); undefined when there are no values. */

@@ -128,3 +128,15 @@ describe("findOutliers, method mad", () => {
     expect(Array.from(col.values())).toEqual(SAMPLE);
   });
 });
+
+describe("modified z-scores of a decimal column are compared exactly", () => {
+  // Median 1.0, absolute deviations 0.1 0 0 0.1 0.1 0.3 0.1 0.3 0 → MAD 0.1; M(1.3) = 0.6745 × 0.3 / 0.1
+  // = 2.0235 in decimal arithmetic (2.0235000000000003 in doubles).
+  const values = [0.9, 1.0, 1.0, 1.1, 0.9, 1.3, 1.1, 0.7, 1.0];
+
+  it("a score equal to the threshold is not beyond it; a lower threshold flags both 0.7 and 1.3", () => {
+    expect(findOutliers(column(values), { method: "mad", threshold: 2.0235 }).count).toBe(0);
+    const report = findOutliers(column(values), { method: "mad", threshold: 2.0234 });
+    expect(report.outliers.map((o) => o.value)).toEqual([1.3, 0.7]);
+  });
+});

@@ -103,3 +103,20 @@ describe("findOutliers, method tukey", () => {
     expect(r.fence).toEqual({ low: 3.25, high: 3.25 });
   });
 });
+
+describe("fences of a decimal column are exact decimals", () => {
+  // Type 7 on these nine values: h = 8 × 0.25 = 2 and 6, so Q1 = 0.01 and Q3 = 0.04 (the 3rd and 7th
+  // values); IQR 0.03; fences 0.01 − 0.045 = −0.035 and 0.04 + 0.045 = 0.085 (decimal arithmetic).
+  // In plain doubles the upper fence is 0.08499999999999999 and the value 0.085 would fall outside it.
+  const values = [-0.035, 0, 0.01, 0.02, 0.02, 0.03, 0.04, 0.05, 0.085];
+
+  it("puts the fences at -0.035 and 0.085 exactly", () => {
+    expect(tukeyFences(f64(values), 1.5)).toEqual({ q1: 0.01, q3: 0.04, iqr: 0.03, low: -0.035, high: 0.085 });
+  });
+
+  it("does not flag values that sit on a fence, and flags one a step beyond", () => {
+    expect(findOutliers(column(values), { method: "tukey", k: 1.5 }).count).toBe(0);
+    const report = findOutliers(column([...values.slice(0, 8), 0.086]), { method: "tukey", k: 1.5 });
+    expect(report.outliers.map((o) => o.value)).toEqual([0.086]);
+  });
+});
