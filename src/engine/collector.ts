@@ -16,6 +16,10 @@ export interface Collector {
    */
   fail(check: number, row: number, level?: Level): boolean;
   keep(check: number, finding: Finding): void;
+  /** Count `rows` rows as failing `check` for its allowance, where a finding stands for many (a group's rows). */
+  cover(check: number, rows: number): void;
+  /** Rows that failed each check that covers rows (groups); other checks' rows are their failures. */
+  readonly covered: ReadonlyMap<number, number>;
   readonly failed: Uint32Array;
   readonly findings: readonly Finding[];
   /** Findings by check, the first SAMPLES_PER_CHECK of each. */
@@ -32,6 +36,7 @@ export function createCollector(checks: readonly CheckMeta[], maxFindings: numbe
   const samples: Finding[][] = checks.map(() => []);
   const levelCounts: Record<Level, number> = { error: 0, warning: 0, note: 0 };
   const failedRows = createRowBits();
+  const covered = new Map<number, number>();
   let truncated = false;
   return {
     fail(check, row, level) {
@@ -49,6 +54,10 @@ export function createCollector(checks: readonly CheckMeta[], maxFindings: numbe
       const s = samples[check];
       if (s && s.length < SAMPLES_PER_CHECK) s.push(finding);
     },
+    cover(check, rows) {
+      covered.set(check, (covered.get(check) ?? 0) + rows);
+    },
+    covered,
     failed,
     findings,
     samples,

@@ -125,6 +125,7 @@ export function createFileEnd(plan: Plan, out: Collector) {
         const failing: number[] = [];
         // Group indexes follow each group's first row, so this is file order.
         for (let at = 0; at < g.keys.length; at++) if (isFalse(g.plan.assert.evaluate(g.table.results(at)))) failing.push(at);
+        for (const at of failing) out.cover(g.plan.check, g.rows[at] ?? 0);
         for (const at of failing) {
           const firstRow = g.firstRow.at(at);
           if (!out.fail(g.plan.check, firstRow)) continue;

@@ -23,7 +23,8 @@ export function buildReport({ plan, collector, rows, contractPath, input, failOn
     const failed = collector.failed[i] ?? 0;
     const examples = collector.samples[i] ?? [];
     if (meta.allow === undefined) return { ...meta, failed, examples };
-    const share = rows === 0 ? 0 : failed / rows;
+    // The share of rows that fail the check: for a group, the rows of its failing groups.
+    const share = rows === 0 ? 0 : (collector.covered.get(i) ?? failed) / rows;
     return { ...meta, failed, share, within_allowance: share <= meta.allow, examples };
   });
   const failing = checks.some((c) => c.failed > 0 && c.within_allowance !== true && SEVERITY[c.level] >= SEVERITY[failOn]);

@@ -58,3 +58,19 @@ describe("group keys", () => {
     expect(found.map((f) => f.row)).toEqual([3]);
   });
 });
+
+describe("allow on a group", () => {
+  // SPEC §1.5: "the check fails only when more than that share of rows violate it". A failing group's
+  // rows are the rows that violate it: 2 failing invoices of 3 and 2 lines in 10 rows are 5 rows, 0.5.
+  const contract = (allow: number) =>
+    `tablegate: 1\nname: inv\ncolumns:\n  invoice: { type: text }\n  line: { type: integer }\ngroups:\n  - id: numbered\n    by: [invoice]\n    assert: count() = max(line)\n    allow: ${allow}\n`;
+  const data = "invoice,line\nA,1\nA,2\nA,4\nB,1\nC,1\nC,3\nD,1\nE,1\nF,1\nG,1\n";
+
+  it("is judged on the rows of the failing groups", async () => {
+    const within = await checkJson(contract(0.5), data);
+    const beyond = await checkJson(contract(0.49), data);
+    const tally = (r: typeof within) => r.report.checks.find((c) => c.rule === "group:numbered");
+    expect({ code: within.code, failed: tally(within)?.failed, share: tally(within)?.share }).toEqual({ code: 0, failed: 2, share: 0.5 });
+    expect({ code: beyond.code, within: tally(beyond)?.within_allowance }).toEqual({ code: 1, within: false });
+  });
+});
