@@ -391,10 +391,6 @@ function makeCompiler(source: string, env: ExprEnv) {
   }
 
   function compileComparison(node: NodeOf<"binary">): C | null {
-    const nullSide = node.left.type === "null" ? node.left : node.right.type === "null" ? node.right : null;
-    if (nullSide !== null) {
-      return fail(nullSide.start, `a comparison with NULL is never true (it is unknown); write IS NULL or IS NOT NULL`);
-    }
     const left = compile(node.left);
     const right = left === null ? null : compile(node.right);
     if (left === null || right === null || !checkComparable(left, right, node.opStart)) return null;

@@ -58,6 +58,12 @@ describe("comparisons with NULL are unknown", () => {
     expect(run(`x ${op} y`, row(null, null, null, 1))).toBe(null);
     expect(run(`x ${op} y`, row(null, null, null, null))).toBe(null);
   });
+  test.each(["=", "<>", "<", ">="])("x %s NULL and NULL %s x are unknown whatever x holds (a NULL literal is NULL)", (op) => {
+    for (const x of [1, null]) {
+      expect(run(`x ${op} NULL`, row(null, null, x))).toBe(null);
+      expect(run(`NULL ${op} x`, row(null, null, x))).toBe(null);
+    }
+  });
   test("comparisons of values", () => {
     const r = row(null, null, 2, 3);
     expect([run("x = y", r), run("x <> y", r), run("x != y", r), run("x < y", r), run("x <= y", r), run("x > y", r), run("x >= y", r)]).toEqual([F, T, T, T, T, F, F]);
