@@ -1,5 +1,6 @@
 import { CHECKS, type CheckContext } from "../checks/index.js";
 import { compileExpression, type CompiledExpr, type ReferenceLookup } from "../expr/index.js";
+import { typedCell } from "../registry/typed-cell.js";
 import type { Problem } from "../problem.js";
 import type { Registry } from "../registry/index.js";
 import { compileType, todayDays } from "../types/index.js";
@@ -76,7 +77,13 @@ export function compilePlan({ src, spec, sha256, registry, today = todayDays() }
     const t = registry.table(name);
     if (!t) return undefined;
     usedTables.add(name);
-    return { columns: t.columns, get: (key, column) => t.get(key, column) };
+    return {
+      columns: t.columns,
+      get: (key, column) => {
+        const cell = t.get(key, column);
+        return cell === null ? null : typedCell(t.types[column], cell);
+      },
+    };
   };
   const compileExpr = (text: string, path: YamlPath, aggregates = false): CompiledExpr | undefined => {
     const r = compileExpression(text, { column: columnIndex, table: lookupTable, aggregates, columnNames: names, columnType: (i) => spec.columns[names[i] ?? ""]?.type });
