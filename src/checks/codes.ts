@@ -29,7 +29,7 @@ export const codes: CheckDefinition = {
         return [{ path: ["codes", wrong.field], message: wrong.message }];
       }
       allowed = set;
-      where = `a ${column} in reference table ${table}`;
+      where = `a value of column ${column} in reference table ${table}`;
     }
     const m = miss(Array.isArray(c) ? `one of ${where}` : where, Array.isArray(c) ? "is not an allowed code" : `is not ${where}`);
     return { description: `${ctx.column} is ${Array.isArray(c) ? `one of ${where}` : where}`, test: (_v, text) => (allowed.has(text) ? undefined : m) };

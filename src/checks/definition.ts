@@ -29,6 +29,8 @@ export interface CheckContext {
   readonly columnNames: readonly string[];
   /** Values of a registry table column, or which of the two names is wrong and why. */
   codeSet(table: string, column: string): ReadonlySet<string> | { readonly field: "table" | "column"; readonly message: string };
+  /** True when the named column is `sensitive`: a check must not show its values in what it reports. */
+  sensitive(name: string): boolean;
   /** Today, as days since 1970-01-01 (UTC), fixed for the whole run. */
   readonly today: number;
   /**

@@ -1,4 +1,5 @@
 import { checkPostal } from "../postal/index.js";
+import { isIsoAlpha2 } from "../registry/iso-3166-1.js";
 import type { Miss } from "./definition.js";
 import type { CheckDefinition } from "./definition.js";
 
@@ -15,9 +16,13 @@ export const postal: CheckDefinition = {
   compile(spec, ctx) {
     const ref = spec.postal ?? "";
     const countryColumn = ctx.columnIndex(ref);
-    if (countryColumn === undefined && !ALPHA2.test(ref)) {
-      return [{ path: ["postal"], message: `postal must name a column or an ISO 3166-1 alpha-2 code; "${ref}" is neither (columns: ${ctx.columnNames.join(", ")})` }];
+    if (countryColumn === undefined && !(ALPHA2.test(ref) && isIsoAlpha2(ref))) {
+      const why = ALPHA2.test(ref) ? `"${ref}" is not an ISO 3166-1 code${ref === "UK" ? " (the United Kingdom is GB)" : ""}` : `"${ref}" is neither`;
+      return [{ path: ["postal"], message: `postal must name a column or an ISO 3166-1 alpha-2 code; ${why} (columns: ${ctx.columnNames.join(", ")})` }];
     }
+    // A sensitive country column must not show through this column's findings, not even as the
+    // layout it implies.
+    const hidden = countryColumn !== undefined && ctx.sensitive(ref);
     const misses = new Map<string, Miss>();
     const judge = (country: string, text: string): Miss | undefined => {
       const verdict = checkPostal(country, text);
@@ -25,9 +30,10 @@ export const postal: CheckDefinition = {
       const key = `${verdict.status}:${country}`;
       let m = misses.get(key);
       if (!m) {
+        const which = hidden ? `of the country in ${ref}` : country;
         m = verdict.status === "invalid"
-          ? { expected: verdict.expected, reason: `is not a valid ${country} postal code` }
-          : { expected: verdict.expected, reason: `cannot be judged: no postal layout known for ${country}`, level: "note" };
+          ? { expected: hidden ? `a postal code of the country in ${ref}` : verdict.expected, reason: hidden ? `is not a valid postal code of the country in ${ref}` : `is not a valid ${country} postal code` }
+          : { expected: hidden ? `a country with a known postal layout in ${ref}` : verdict.expected, reason: `cannot be judged: no postal layout known ${hidden ? which : `for ${country}`}`, level: "note" };
         misses.set(key, m);
       }
       return m;

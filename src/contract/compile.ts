@@ -119,6 +119,7 @@ export function compilePlan({ src, spec, sha256, registry, today = todayDays() }
       column: name,
       columnIndex,
       columnNames: names,
+      sensitive: (other) => spec.columns[other]?.sensitive === true,
       today,
       writtenNumber: (path) => writtenNumber(src, [...base, ...path]),
       codeSet: (table, column) => {

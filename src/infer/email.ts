@@ -7,6 +7,7 @@ const context: CheckContext = {
   column: "",
   columnIndex: () => undefined,
   columnNames: [],
+  sensitive: () => false,
   codeSet: () => ({ field: "table", message: "" }),
   today: 0,
   writtenNumber: () => undefined,

@@ -33,6 +33,14 @@ export function iso3166Data(): { rows: string[][]; csv: string; version: string 
 
 const COLUMNS = ["alpha2", "alpha3", "numeric", "name"];
 
+let alpha2Codes: ReadonlySet<string> | undefined;
+
+/** True when `code` is an ISO 3166-1 alpha-2 code of the built-in table (so `UK` and `XK` are not). */
+export function isIsoAlpha2(code: string): boolean {
+  alpha2Codes ??= new Set(iso3166Data().rows.map((r) => r[0] as string));
+  return alpha2Codes.has(code);
+}
+
 /** The built-in iso-3166-1 table (alpha2, alpha3, numeric as three-digit text, English name). */
 export function iso3166Table(): RefTable {
   const { rows, csv, version } = iso3166Data();

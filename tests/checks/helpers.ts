@@ -11,6 +11,7 @@ export function fakeContext(over: Partial<CheckContext> = {}): CheckContext {
     column: "c",
     columnIndex: () => undefined,
     columnNames: ["c"],
+    sensitive: () => false,
     codeSet: (table) => ({ field: "table", message: `no table ${table}` }),
     today: Date.UTC(2024, 5, 15) / 86_400_000,
     writtenNumber: () => undefined,

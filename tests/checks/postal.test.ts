@@ -57,15 +57,18 @@ describe("postal with a literal country", () => {
       ...US_INVALID.map(() => false),
     ]);
   });
-  it("a literal with no known layout compiles and gives notes", () => {
-    const zz: ColumnSpec = { type: "text", postal: "ZZ" };
-    expect(judge(compiled("postal", zz, ctx), zz, "123", row("", "123"))?.level).toBe("note");
+  it("a literal ISO code with no known layout compiles and gives notes", () => {
+    // Hong Kong (HK) is an ISO 3166-1 code; it uses no postal codes (from memory), and no layout is known.
+    const hk: ColumnSpec = { type: "text", postal: "HK" };
+    expect(judge(compiled("postal", hk, ctx), hk, "123", row("", "123"))?.level).toBe("note");
   });
 });
 
 describe("postal references", () => {
   it("neither a column nor an alpha-2 code is a spec error at ['postal']", () => {
-    for (const ref of ["nation", "USA", "u", ""]) {
+    // UK is not ISO 3166-1 (the United Kingdom is GB); ZZ and XK are user-assigned codes (ISO 3166-1
+    // reserves AA, QM–QZ, XA–XZ and ZZ for user assignment; from memory).
+    for (const ref of ["nation", "USA", "u", "", "UK", "ZZ", "XK"]) {
       const errors = specErrors("postal", { type: "text", postal: ref }, ctx);
       expect([ref, errors.map((e) => e.path)]).toEqual([ref, [["postal"]]]);
     }
@@ -74,5 +77,24 @@ describe("postal references", () => {
     const named = fakeContext({ columnNames: ["CC", "zip"], columnIndex: (n) => (n === "CC" ? 0 : undefined) });
     const spec: ColumnSpec = { type: "text", postal: "CC" };
     expect(judge(compiled("postal", spec, named), spec, "12345", row("US", "12345"))).toBeUndefined();
+  });
+});
+
+describe("a sensitive country column", () => {
+  const hidden = fakeContext({
+    column: "postal_code",
+    columnNames: ["country", "postal_code"],
+    columnIndex: (n) => (n === "country" ? 0 : n === "postal_code" ? 1 : undefined),
+    sensitive: (n) => n === "country",
+  });
+  const spec: ColumnSpec = { type: "text", postal: "country" };
+  const check = compiled("postal", spec, hidden);
+  it("does not show through the postal findings, not even as the layout it implies", () => {
+    for (const [country, code] of [["AD", "1234"], ["QQ", "1"], ["US", "1234"]] as const) {
+      const m = judge(check, spec, code, row(country, code));
+      expect(m).toBeDefined();
+      const shown = `${m?.expected ?? ""} ${m?.reason ?? ""}`;
+      expect([country, shown.includes(country), /ZIP|AD\d/.test(shown)]).toEqual([country, false, false]);
+    }
   });
 });
