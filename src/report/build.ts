@@ -21,11 +21,13 @@ const SEVERITY: Readonly<Record<Level, number>> = { note: 0, warning: 1, error: 
 export function buildReport({ plan, collector, rows, contractPath, input, failOn }: BuildInput): DeliveryReport {
   const checks: CheckTally[] = plan.checks.map((meta, i) => {
     const failed = collector.failed[i] ?? 0;
+    const other = collector.relevelled.get(i);
     const examples = collector.samples[i] ?? [];
-    if (meta.allow === undefined) return { ...meta, failed, examples };
+    const base = { ...meta, failed, examples, ...(other === undefined ? {} : { otherLevels: other }) };
+    if (meta.allow === undefined) return base;
     // The share of rows that fail the check: for a group, the rows of its failing groups.
     const share = rows === 0 ? 0 : (collector.covered.get(i) ?? failed) / rows;
-    return { ...meta, failed, share, within_allowance: share <= meta.allow, examples };
+    return { ...base, share, within_allowance: share <= meta.allow };
   });
   const failing = checks.some((c) => c.failed > 0 && c.within_allowance !== true && SEVERITY[c.level] >= SEVERITY[failOn]);
   const notes = collector.levelCounts;

@@ -15,7 +15,7 @@ const RESERVE = 1024;
 function deliverySection(r: DeliveryReport): string[] {
   const c = r.contract;
   const total = r.counts.error + r.counts.warning + r.counts.note;
-  const checks = tallies(r);
+  const checks = tallies(r, { byLevel: true });
   const failing = [...checks].filter((t) => t.failed > 0).sort((a, b) => levelRank(a.level) - levelRank(b.level));
   const passed = checks.length - failing.length;
   const out: string[] = [

@@ -2,7 +2,7 @@ import type { CheckTally, ColumnProfile, DeliveryReport, Finding, Level } from "
 import type { Writer, WriterContext } from "./writer.js";
 import { escapeHtml as esc, htmlValue } from "./html-escape.js";
 import { LEVEL_COLOUR, barChart, histogram } from "./svg-charts.js";
-import { findingsByRule, levelRank, tallies } from "./tally.js";
+import { findingsByTally, levelRank, tallies, tallyKey } from "./tally.js";
 import { formatCount, plural } from "./wording.js";
 
 /** Findings shown per check in the HTML report. */
@@ -112,9 +112,9 @@ function where(f: Finding): string {
 
 function findingsSection(r: DeliveryReport, failing: readonly CheckTally[]): string {
   if (failing.length === 0) return "";
-  const byRule = findingsByRule(r);
+  const byTally = findingsByTally(r);
   const blocks = failing.map((t) => {
-    const found = byRule.get(t.rule) ?? [];
+    const found = byTally.get(tallyKey(t.rule, t.level)) ?? [];
     const shown = found.slice(0, HTML_FINDINGS_PER_CHECK);
     const rows = shown.map(
       (f) =>
@@ -163,7 +163,7 @@ function profileSection(r: DeliveryReport): string {
 }
 
 function delivery(r: DeliveryReport): string {
-  const checks = tallies(r);
+  const checks = tallies(r, { byLevel: true });
   const failing = [...checks].filter((t) => t.failed > 0).sort((a, b) => levelRank(a.level) - levelRank(b.level) || b.failed - a.failed);
   const passed = checks.filter((t) => t.failed === 0);
   const cut = r.truncated ? `<p class="muted">Only the first ${plural(r.findings.length, "problem")} were recorded one by one; the counts are complete.</p>` : "";

@@ -1,8 +1,8 @@
 import type { CheckTally, DeliveryReport } from "./model.js";
 import type { Writer } from "./writer.js";
 
-function checkJson(c: CheckTally): Omit<CheckTally, "examples"> {
-  const { examples: _examples, ...rest } = c;
+function checkJson(c: CheckTally): Omit<CheckTally, "examples" | "otherLevels"> {
+  const { examples: _examples, otherLevels: _other, ...rest } = c;
   return rest;
 }
 

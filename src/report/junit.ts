@@ -1,6 +1,6 @@
 import type { CheckTally, DeliveryReport, Finding } from "./model.js";
 import type { Writer } from "./writer.js";
-import { counts, findingsByRule, tallies } from "./tally.js";
+import { counts, findingsByTally, tallies, tallyKey } from "./tally.js";
 import { formatCount, whereText } from "./wording.js";
 import { xmlAttr, xmlText } from "./xml-escape.js";
 
@@ -32,8 +32,8 @@ function failing(report: DeliveryReport, checks: readonly CheckTally[]): (c: Che
 }
 
 function suite(report: DeliveryReport, id: number): { xml: string; tests: number; failures: number } {
-  const checks = tallies(report);
-  const byRule = findingsByRule(report);
+  const checks = tallies(report, { byLevel: true });
+  const byTally = findingsByTally(report);
   const fails = failing(report, checks);
   const c = report.contract;
   const props: [string, string][] = [
@@ -49,13 +49,17 @@ function suite(report: DeliveryReport, id: number): { xml: string; tests: number
   ];
   const cases: string[] = [];
   let failures = 0;
+  const named = new Set<string>();
   for (const t of checks) {
-    const open = `    <testcase classname="${xmlAttr(c.name)}" name="${xmlAttr(t.rule)}"`;
+    // A check's findings at another level (notes under an error check) are a testcase of their own.
+    const name = named.has(t.rule) ? `${t.rule} (${t.level})` : t.rule;
+    named.add(t.rule);
+    const open = `    <testcase classname="${xmlAttr(c.name)}" name="${xmlAttr(name)}"`;
     if (t.failed === 0) {
       cases.push(`${open}/>`);
       continue;
     }
-    const text = xmlText(body(report, t, byRule.get(t.rule) ?? []));
+    const text = xmlText(body(report, t, byTally.get(tallyKey(t.rule, t.level)) ?? []));
     if (fails(t)) {
       failures += 1;
       const message = `${formatCount(t.failed)} ${t.failed === 1 ? "finding" : "findings"}: ${t.description}`;

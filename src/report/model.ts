@@ -42,6 +42,11 @@ export interface CheckTally {
   readonly within_allowance?: boolean;
   /** The first few findings of this check, kept even past `--max-findings`; not written to JSON. */
   readonly examples?: readonly Finding[];
+  /**
+   * Findings of this check at other levels than its own, by level (not in `failed`); not written to
+   * JSON, where the findings carry their level and `counts` includes them.
+   */
+  readonly otherLevels?: Readonly<Partial<Record<Level, number>>>;
 }
 
 export interface ReferenceUse {

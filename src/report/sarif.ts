@@ -141,7 +141,8 @@ export const sarif: Writer = (reports: readonly DeliveryReport[], ctx: WriterCon
     });
   }
   for (const r of cutByEngine) {
-    const total = r.checks.reduce((n, c) => n + c.failed, 0);
+    // Every finding has exactly one level, so the level counts sum to all findings, notes included.
+    const total = r.counts.error + r.counts.warning + r.counts.note;
     notifications.push({
       level: "warning",
       descriptor: { id: "findings-truncated" },
@@ -172,7 +173,7 @@ export const sarif: Writer = (reports: readonly DeliveryReport[], ctx: WriterCon
         columnKind: "utf16CodeUnits",
         artifacts,
         results: kept.map((p) => result(p.f, p.report, p.tally, p.ruleIndex, p.fp)),
-        properties: { resultCap: SARIF_RESULT_CAP, resultsOmitted: omitted, findingsTotal: pending.length, fingerprint: "sha256(contract, delivery path, rule, column, value, occurrence)" },
+        properties: { resultCap: SARIF_RESULT_CAP, resultsOmitted: omitted, findingsListed: pending.length, findingsTotal: reports.reduce((n, r) => n + r.counts.error + r.counts.warning + r.counts.note, 0), fingerprint: "sha256(contract, delivery path, rule, column, value, occurrence)" },
       },
     ],
   };

@@ -1,5 +1,6 @@
 import type { CheckTally, DeliveryReport, Finding, Level } from "./model.js";
 import { paint } from "./colour.js";
+import { tallies } from "./tally.js";
 import { thousands } from "./thousands.js";
 import type { Writer, WriterContext } from "./writer.js";
 
@@ -19,7 +20,7 @@ function checkBlock(r: DeliveryReport, c: CheckTally, colour: boolean | undefine
   const src = c.source ? `${r.contract.path}:${c.source.line}` : "built in";
   const allowance = c.allow === undefined ? "" : ` · ${(100 * (c.share ?? 0)).toFixed(2)}% of rows, ${c.within_allowance ? "within" : "over"} the ${(100 * c.allow).toFixed(2)}% allowed`;
   const lines = [`${paint(colour, c.level, c.level.toUpperCase().padEnd(7))} ${c.rule} · ${plural(c.failed, "finding")}${allowance}`, oneLine(`        ${c.description} (${src})`)];
-  const shown = c.examples ?? r.findings.filter((f) => f.rule === c.rule).slice(0, 5);
+  const shown = c.examples ?? r.findings.filter((f) => f.rule === c.rule && f.level === c.level).slice(0, 5);
   for (const f of shown) lines.push(oneLine(`        ${where(f).padEnd(22)} ${f.message}${f.value !== undefined && !f.message.includes(f.value) ? ` (value ${f.value})` : ""}`));
   const more = c.failed - shown.length;
   if (more > 0) lines.push(`        ... and ${plural(more, "more finding")} of this rule`);
@@ -33,7 +34,7 @@ function delivery(r: DeliveryReport, colour: boolean | undefined): string {
     `${r.verdict === "pass" ? paint(colour, "pass", "PASS") : paint(colour, "fail", "FAIL")} · ${plural(r.input.rows, "row")} · ${plural(c.error, "error")}, ${plural(c.warning, "warning")}, ${plural(c.note, "note")} · ${plural(c.rows_failed, "row")} with errors`,
   ];
   if (r.input.note) head.push(oneLine(`note: ${r.input.note}`));
-  const failed = r.checks.filter((k) => k.failed > 0).sort((a, b) => ORDER[a.level] - ORDER[b.level]);
+  const failed = tallies(r, { byLevel: true }).filter((k) => k.failed > 0).sort((a, b) => ORDER[a.level] - ORDER[b.level]);
   const body = failed.flatMap((k) => ["", ...checkBlock(r, k, colour)]);
   const tail = r.truncated ? ["", `(the JSON report lists the first ${n(r.findings.length)} findings; counts above are complete)`] : [];
   return [...head, ...body, ...tail].join("\n");
