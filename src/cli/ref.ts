@@ -86,6 +86,15 @@ async function registryOr(ctx: Ctx): Promise<Registry | number> {
   return r.ok ? r.value : problems(ctx.io, r.problems);
 }
 
+/** Every problem of the tables that did not load, in manifest order. */
+const brokenProblems = (reg: Registry): Problem[] => [...(reg.broken?.().values() ?? [])].flat();
+
+/** The exit status for a command on table `name` when that table did not load; undefined when it did. */
+function whenBroken(ctx: Ctx, reg: Registry, name: string): number | undefined {
+  const found = reg.broken?.().get(name);
+  return found === undefined ? undefined : problems(ctx.io, found);
+}
+
 function lockState(t: RefTable, issues: readonly LockIssue[]): string {
   if (t.builtIn) return "built-in";
   const issue = issues.find((i) => i.table === t.name);
@@ -99,6 +108,8 @@ const list: Sub = async (_p, values, ctx) => {
   if (!lock.ok) return problems(ctx.io, lock.problems);
   const issues = compareLock(lock.value, reg);
   const rows = reg.tables().map((t) => ({ table: t.name, version: t.version, rows: t.rows, key: t.key, columns: t.columns, origin: t.origin, lock: lockState(t, issues), description: t.description ?? "" }));
+  // Tables that did not load are not listed; say so, without failing the listing of the others.
+  for (const name of reg.broken?.().keys() ?? []) ctx.io.stderr(`tablegate: table "${name}" did not load and is not listed; tablegate ref lint shows why\n`);
   if (values.json) {
     ctx.io.stdout(JSON.stringify(rows, null, 2) + "\n");
     return PASS;
@@ -116,7 +127,7 @@ const show: Sub = async (positionals, values, ctx) => {
   const reg = await registryOr(ctx);
   if (typeof reg === "number") return reg;
   const t = reg.table(name);
-  if (!t) return bad(ctx.io, `unknown table "${name}" (tables: ${reg.tables().map((x) => x.name).join(", ")})`);
+  if (!t) return whenBroken(ctx, reg, name) ?? bad(ctx.io, `unknown table "${name}" (tables: ${reg.tables().map((x) => x.name).join(", ")})`);
   const keys = t.keys().slice((page - 1) * size, page * size);
   const pages = Math.max(1, Math.ceil(t.rows / size));
   const out = ctx.io.stdout;
@@ -142,6 +153,8 @@ const lint: Sub = async (_p, values, ctx) => {
   };
   const reg = await loadRegistry(ctx.root, ctx.roots);
   if (!reg.ok) return report(FAIL, 0, reg.problems);
+  const broken = brokenProblems(reg.value);
+  if (broken.length > 0) return report(FAIL, reg.value.tables().length, broken);
   const lock = await readLock(ctx.root);
   if (!lock.ok) return report(FAIL, reg.value.tables().length, lock.problems);
   const issues = compareLock(lock.value, reg.value);
@@ -154,6 +167,9 @@ const lint: Sub = async (_p, values, ctx) => {
 const lock: Sub = async (_p, _v, ctx) => {
   const reg = await registryOr(ctx);
   if (typeof reg === "number") return reg;
+  // A lock records every table; one that does not load cannot be recorded.
+  const broken = brokenProblems(reg);
+  if (broken.length > 0) return problems(ctx.io, broken);
   const written = await writeLock(ctx.root, reg);
   if (!written.ok) return problems(ctx.io, written.problems);
   const n = Object.keys(written.value.lock.tables).length;
@@ -167,7 +183,7 @@ const diff: Sub = async (positionals, values, ctx) => {
   const reg = await registryOr(ctx);
   if (typeof reg === "number") return reg;
   const after = reg.table(name);
-  if (!after) return bad(ctx.io, `unknown table "${name}"`);
+  if (!after) return whenBroken(ctx, reg, name) ?? bad(ctx.io, `unknown table "${name}"`);
   if (after.builtIn) return problems(ctx.io, [{ file: after.file, message: `table "${name}" is built in: it changes only with tablegate's own version` }]);
   if (after.origin.startsWith("node_modules/")) return problems(ctx.io, [{ file: after.origin, message: `table "${name}" comes from an npm package, which is not in git history; compare package versions instead` }]);
   let rev = values.from;
@@ -229,6 +245,8 @@ const impact: Sub = async (positionals, values, ctx) => {
   if (values.contract !== undefined && (values.data ?? []).length === 0) return bad(ctx.io, "--contract names the contract for the --data files; give --data <glob> too");
   const reg = await registryOr(ctx);
   if (typeof reg === "number") return reg;
+  const broken = whenBroken(ctx, reg, name);
+  if (broken !== undefined) return broken;
   let config = ctx.config;
   if (!config) {
     const loaded = await loadProjectConfig(ctx.root);

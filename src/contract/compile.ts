@@ -73,6 +73,14 @@ export function compilePlan({ src, spec, sha256, registry, today = todayDays() }
     return i < 0 ? undefined : i;
   };
   const usedTables = new Set<string>();
+  // A table the registry declares but could not load blocks only the contracts that name it.
+  const brokenReason = (name: string): string | undefined => {
+    const found = registry.broken?.().get(name);
+    const first = found?.[0];
+    if (first === undefined) return undefined;
+    const where = `${first.file}${first.line === undefined ? "" : `:${first.line}`}`;
+    return `reference table "${name}" cannot be used: ${where}: ${first.message}${found !== undefined && found.length > 1 ? ` (and ${found.length - 1} more; tablegate ref lint lists them)` : ""}`;
+  };
   const lookupTable = (name: string): ReferenceLookup | undefined => {
     const t = registry.table(name);
     if (!t) return undefined;
@@ -86,7 +94,7 @@ export function compilePlan({ src, spec, sha256, registry, today = todayDays() }
     };
   };
   const compileExpr = (text: string, path: YamlPath, aggregates = false): CompiledExpr | undefined => {
-    const r = compileExpression(text, { column: columnIndex, table: lookupTable, aggregates, columnNames: names, columnType: (i) => spec.columns[names[i] ?? ""]?.type });
+    const r = compileExpression(text, { column: columnIndex, table: lookupTable, tableTrouble: brokenReason, aggregates, columnNames: names, columnType: (i) => spec.columns[names[i] ?? ""]?.type });
     if (r.ok) return r.expr;
     problems.push(problemAt(src, path, r.message, { offset: r.offset }));
     return undefined;
@@ -124,7 +132,7 @@ export function compilePlan({ src, spec, sha256, registry, today = todayDays() }
       writtenNumber: (path) => writtenNumber(src, [...base, ...path]),
       codeSet: (table, column) => {
         const t = registry.table(table);
-        if (!t) return { field: "table", message: `unknown reference table "${table}"${suggestion(table, registry.tables().map((x) => x.name))}; tables: ${registry.tables().map((x) => x.name).join(", ")}` };
+        if (!t) return { field: "table", message: brokenReason(table) ?? `unknown reference table "${table}"${suggestion(table, registry.tables().map((x) => x.name))}; tables: ${registry.tables().map((x) => x.name).join(", ")}` };
         const values = t.values(column);
         if (!values) return { field: "column", message: `reference table "${table}" has no column "${column}"${suggestion(column, t.columns)}; columns: ${t.columns.join(", ")}` };
         usedTables.add(table);

@@ -292,7 +292,7 @@ function makeCompiler(source: string, env: ExprEnv) {
     }
     if (tableNode.type !== "text") return fail(tableNode.start, "expected the table name as quoted text, like lookup('us-states', state, 'region')");
     const table = env.table(tableNode.value);
-    if (table === undefined) return fail(tableNode.start, `unknown reference table '${tableNode.value}'`);
+    if (table === undefined) return fail(tableNode.start, env.tableTrouble?.(tableNode.value) ?? `unknown reference table '${tableNode.value}'`);
     if (columnNode.type !== "text") return fail(columnNode.start, "expected the column name as quoted text, like lookup('us-states', state, 'region')");
     const ci = table.columns.indexOf(columnNode.value);
     if (ci < 0) {

@@ -15,6 +15,8 @@ export interface ExprEnv {
   column(name: string): number | undefined;
   /** registry table by name; undefined when unknown */
   table(name: string): ReferenceLookup | undefined;
+  /** why a table the registry declares cannot be used (it did not load), when that is the case */
+  tableTrouble?(name: string): string | undefined;
   /** group mode: allow sum(x) count() count(x) min(x) max(x) first(x); bare column refs outside an aggregate are errors */
   readonly aggregates?: boolean;
   /** declared type of a column, when known: enables type errors at compile time (date compared with a number...) */

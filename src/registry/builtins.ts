@@ -1,6 +1,6 @@
 import { fileURLToPath } from "node:url";
 import type { Result } from "../problem.js";
-import { ok } from "../problem.js";
+import { fail, ok } from "../problem.js";
 import { iso3166Table } from "./iso-3166-1.js";
 import { loadManifestFile } from "./manifest-folder.js";
 import type { RefTable } from "./ref-table.js";
@@ -21,5 +21,8 @@ async function load(): Promise<Result<RefTable[]>> {
   const manifest = fileURLToPath(new URL("../../reference/builtin/registry.yaml", import.meta.url));
   const shipped = await loadManifestFile(manifest, { manifest: "(built-in)/registry.yaml", csv: (f) => `(built-in)/${f}`, builtIn: true });
   if (!shipped.ok) return shipped;
-  return ok([iso3166Table(), ...shipped.value]);
+  // A built-in table that does not load is tablegate's own fault: nothing can be checked.
+  const broken = [...shipped.value.broken.values()].flat();
+  if (broken.length > 0) return fail(...broken);
+  return ok([iso3166Table(), ...shipped.value.tables]);
 }

@@ -11,6 +11,11 @@ export interface Registry {
   table(name: string): RefTable | undefined;
   /** built-ins first, then the repository's own tables, then those of further roots, each in manifest order */
   tables(): readonly RefTable[];
+  /**
+   * Tables the manifests declare but that did not load (a repeated key, a missing file...), with
+   * their problems. They block only what uses them: a contract naming one, `ref show` of it, `ref lock`.
+   */
+  broken?(): ReadonlyMap<string, readonly Problem[]>;
 }
 
 /**
@@ -56,9 +61,9 @@ async function resolveRoot(repoRoot: string, root: RegistryRoot): Promise<Result
     : problem(`npm package ${spec} is not installed (run npm install)`);
 }
 
-function makeRegistry(list: readonly RefTable[]): Registry {
+function makeRegistry(list: readonly RefTable[], broken: ReadonlyMap<string, readonly Problem[]>): Registry {
   const byName = new Map(list.map((t) => [t.name, t] as const));
-  return { table: (name) => byName.get(name), tables: () => list };
+  return { table: (name) => byName.get(name), tables: () => list, broken: () => broken };
 }
 
 /**
@@ -70,6 +75,7 @@ export async function loadRegistry(repoRoot: string, extraRoots: readonly Regist
   const problems: Problem[] = [];
   const list: RefTable[] = [];
   const seen = new Map<string, RefTable>();
+  const broken = new Map<string, readonly Problem[]>();
   const add = (tables: readonly RefTable[]): void => {
     for (const t of tables) {
       const first = seen.get(t.name);
@@ -98,8 +104,12 @@ export async function loadRegistry(repoRoot: string, extraRoots: readonly Regist
     const label = repoLabel(root, m);
     const folder = label.slice(0, label.length - "registry.yaml".length);
     const loaded = await loadManifestFile(m, { manifest: label, csv: (f) => `${folder}${f}`, builtIn: false });
-    if (loaded.ok) add(loaded.value);
-    else problems.push(...loaded.problems);
+    if (!loaded.ok) {
+      problems.push(...loaded.problems);
+      continue;
+    }
+    add(loaded.value.tables);
+    for (const [name, found] of loaded.value.broken) if (!seen.has(name) && !broken.has(name)) broken.set(name, found);
   }
-  return problems.length > 0 ? fail(...problems) : ok(makeRegistry(list));
+  return problems.length > 0 ? fail(...problems) : ok(makeRegistry(list, broken));
 }

@@ -14,7 +14,7 @@ export interface FolderLabels {
 }
 
 /** Load one registry.yaml and every table it lists; CSV files must stay inside the manifest's folder. */
-export async function loadManifestFile(manifestAbs: string, labels: FolderLabels): Promise<Result<RefTable[]>> {
+export async function loadManifestFile(manifestAbs: string, labels: FolderLabels): Promise<Result<LoadedTables>> {
   let text: string;
   try {
     text = await readFile(manifestAbs, "utf8");
@@ -24,29 +24,35 @@ export async function loadManifestFile(manifestAbs: string, labels: FolderLabels
   const manifest = parseManifest(text, labels.manifest);
   if (!manifest.ok) return manifest;
   const folder = dirname(manifestAbs);
-  const problems: Problem[] = [];
+  const broken = new Map<string, Problem[]>();
   const tables: RefTable[] = [];
   for (const entry of manifest.value) {
     const where = { file: labels.manifest, line: entry.at.file.line, column: entry.at.file.column };
     const found = await resolveInside(folder, entry.file);
     if ("escapes" in found) {
-      problems.push({ ...where, message: `table "${entry.name}": file ${entry.file} lies outside the registry folder` });
+      broken.set(entry.name, [{ ...where, message: `table "${entry.name}": file ${entry.file} lies outside the registry folder` }]);
       continue;
     }
     if ("missing" in found) {
-      problems.push({ ...where, message: `table "${entry.name}": file ${entry.file} does not exist` });
+      broken.set(entry.name, [{ ...where, message: `table "${entry.name}": file ${entry.file} does not exist` }]);
       continue;
     }
     let bytes: Uint8Array;
     try {
       bytes = await readFile(found.abs);
     } catch {
-      problems.push({ ...where, message: `table "${entry.name}": cannot read ${entry.file}` });
+      broken.set(entry.name, [{ ...where, message: `table "${entry.name}": cannot read ${entry.file}` }]);
       continue;
     }
     const table = parseCsvTable(entry, bytes, { file: labels.csv(entry.file), manifestFile: labels.manifest, builtIn: labels.builtIn });
     if (table.ok) tables.push(table.value);
-    else problems.push(...table.problems);
+    else broken.set(entry.name, [...table.problems]);
   }
-  return problems.length > 0 ? fail(...problems) : ok(tables);
+  return ok({ tables, broken });
+}
+
+/** The tables of one manifest that loaded, and the problems of each that did not, by name. */
+export interface LoadedTables {
+  readonly tables: RefTable[];
+  readonly broken: ReadonlyMap<string, readonly Problem[]>;
 }
