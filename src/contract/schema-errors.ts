@@ -41,7 +41,11 @@ function allowedKeys(schema: unknown): string[] {
  * Alternatives (anyOf) that failed only because of their type collapse into one "expected A or B".
  */
 export function schemaProblems(src: YamlSource, data: unknown, errors: readonly ErrorObject[]): Problem[] {
-  const deeper = (path: string) => errors.some((e) => e.instancePath.startsWith(path + "/") && e.keyword !== "anyOf");
+  // A branch of an anyOf matched the value's shape when it has errors inside the value, or about the
+  // value's own keys (a map missing a required key): those say more than "expected a list".
+  const SHAPE_BLIND = new Set(["type", "enum", "const", "anyOf", "oneOf"]);
+  const deeper = (path: string) =>
+    errors.some((e) => e.keyword !== "anyOf" && (e.instancePath.startsWith(path + "/") || (e.instancePath === path && !SHAPE_BLIND.has(e.keyword))));
   const anyOfAt = new Set(errors.filter((e) => e.keyword === "anyOf").map((e) => e.instancePath));
   const out: Problem[] = [];
   const seen = new Set<string>();

@@ -49,6 +49,12 @@ const cases: readonly BrokenCase[] = [
     at: [[6, 17]],
   },
   {
+    // One mistake, one message: the map form of codes lacks its column; that it is not a list too says nothing.
+    name: "codes as a map without its column",
+    contract: head + "columns:\n  kind: { type: text, codes: { table: iso-3166-1 } }\n",
+    at: [[4, 30]],
+  },
+  {
     name: "bad expression, plain scalar: the second > of qty >> 3",
     contract: head + "columns:\n  qty: { type: integer }\nrules:\n  - id: r1\n    assert: qty >> 3\n",
     at: [[7, 18]],
