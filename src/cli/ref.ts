@@ -22,6 +22,7 @@ import { loadProjectConfig, type ProjectConfig } from "../project/config.js";
 import { breaks, tableImpact, type ImpactReport, type RowChange } from "../registry/impact.js";
 import type { Io } from "./io.js";
 import { REPO_MANIFEST } from "../registry/index.js";
+import { oneLine } from "../report/one-line.js";
 import { registryLintReports } from "./ref-lint-report.js";
 import { parseReportTargets, writeReports } from "./reports.js";
 import { findRoot, reportPath } from "./root.js";
@@ -128,8 +129,9 @@ const show: Sub = async (positionals, values, ctx) => {
   if (typeof reg === "number") return reg;
   const t = reg.table(name);
   if (!t) return whenBroken(ctx, reg, name) ?? bad(ctx.io, `unknown table "${name}" (tables: ${reg.tables().map((x) => x.name).join(", ")})`);
-  const keys = t.keys().slice((page - 1) * size, page * size);
   const pages = Math.max(1, Math.ceil(t.rows / size));
+  if (page > pages) return bad(ctx.io, `table "${name}" has ${pages} page${pages === 1 ? "" : "s"} of ${size} rows; there is no page ${page}`);
+  const keys = t.keys().slice((page - 1) * size, page * size);
   const out = ctx.io.stdout;
   out(`${t.name} ${t.version}: ${t.rows} rows, key ${t.key}, ${t.file}\n`);
   if (t.source) out(`source: ${t.source}\n`);
@@ -230,8 +232,10 @@ function wholeNumber(text: string, min: number): number | undefined {
   return /^[0-9]+$/.test(text) && n >= min ? n : undefined;
 }
 
-/** Left-aligned columns separated by two spaces. */
-function columns(rows: readonly (readonly string[])[]): string {
+
+/** Left-aligned columns separated by two spaces, one line per row. */
+function columns(table: readonly (readonly string[])[]): string {
+  const rows = table.map((r) => r.map(oneLine));
   const widths: number[] = [];
   for (const r of rows) r.forEach((c, i) => (widths[i] = Math.max(widths[i] ?? 0, c.length)));
   return rows.map((r) => r.map((c, i) => (i === r.length - 1 ? c : c.padEnd(widths[i] ?? 0))).join("  ").trimEnd()).join("\n") + "\n";

@@ -1,11 +1,10 @@
 import type { CheckTally, DeliveryReport, Finding, Level } from "./model.js";
 import { paint } from "./colour.js";
+import { oneLine } from "./one-line.js";
 import { tallies } from "./tally.js";
 import { thousands } from "./thousands.js";
 import type { Writer, WriterContext } from "./writer.js";
 
-/** Every line of the report is one line: control characters from a delivery are shown escaped. */
-const oneLine = (s: string): string => s.replace(/[\u0000-\u001f\u007f]/g, (c) => (c === "\n" ? "\\n" : c === "\r" ? "\\r" : c === "\t" ? "\\t" : `\\u${c.charCodeAt(0).toString(16).padStart(4, "0")}`));
 
 const ORDER: Readonly<Record<Level, number>> = { error: 0, warning: 1, note: 2 };
 const n = thousands;

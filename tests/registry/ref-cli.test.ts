@@ -63,6 +63,17 @@ describe("tablegate ref", () => {
     expect(dataLines[0]?.slice(0, 2)).toBe("GA");
     expect((await ref(root, "show", "nope")).code).toBe(2);
     expect((await ref(root, "show", "colors", "--page", "0")).code).toBe(2);
+    // us-states has 51 rows: six pages of 10, so there is no seventh.
+    expect((await ref(root, "show", "us-states", "--page", "6", "--page-size", "10")).code).toBe(0);
+    expect((await ref(root, "show", "us-states", "--page", "7", "--page-size", "10")).code).toBe(2);
+  });
+
+  it("show keeps one line per row when a cell holds a line break", async () => {
+    const root = await tempRepo({ "reference/registry.yaml": COLORS_YAML, "reference/colors.csv": 'code,name,rank\nRED,"Red\nish",1\nGRN,Green,2\n' });
+    const r = await ref(root, "show", "colors");
+    expect(r.code).toBe(0);
+    expect(r.out.split("\n").filter((l) => /^(RED|GRN)\s/.test(l))).toHaveLength(2);
+    expect(r.out).toContain("Red\\nish");
   });
 
   it("diff against the lock finds the locked content in git history", async () => {

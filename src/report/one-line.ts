@@ -1,0 +1,3 @@
+/** Text on one line: line breaks, tabs and other control characters from a delivery or table shown escaped. */
+export const oneLine = (s: string): string =>
+  s.replace(/[\u0000-\u001f\u007f]/g, (c) => (c === "\n" ? "\\n" : c === "\r" ? "\\r" : c === "\t" ? "\\t" : `\\u${c.charCodeAt(0).toString(16).padStart(4, "0")}`));
