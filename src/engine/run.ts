@@ -83,6 +83,10 @@ export async function runPlan(plan: Plan, batches: AsyncIterable<readonly RawRec
     if (out.fail(check, rowNo, level)) out.keep(check, { rule: plan.checks[check]?.rule ?? "", level: level ?? levelOf(check), row: rowNo, line, ...make() });
   };
 
+  type Column = (typeof cols)[number];
+  const emitSpaces = (col: Column, raw: string, rowNo: number, line: number) =>
+    emit(col.spacesCheck, rowNo, line, () => ({ column: col.name, value: cellValue(raw, col.sensitive), expected: "no leading or trailing spaces", message: `${col.name} ${shownValue(raw, col.sensitive)} has leading or trailing spaces` }));
+
   const checkRecord = (rec: RawRecord, h: HeaderMatch) => {
     const rowNo = ++rows;
     const line = rec.line;
@@ -131,6 +135,8 @@ export async function runPlan(plan: Plan, batches: AsyncIterable<readonly RawRec
       const raw = raws[i] as string;
       const text = texts[i] as string;
       if (s === 1) {
+        // A blank marker written with spaces (" NA ") still had spaces; a cell of spaces alone is just blank.
+        if (col.spacesCheck >= 0 && raw.length > 0 && raw.trim() !== raw && raw.trim() !== "") emitSpaces(col, raw, rowNo, line);
         if (col.required) emit(col.requiredCheck, rowNo, line, () => ({ column: col.name, value: cellValue(raw, col.sensitive), expected: "a value", message: `${col.name} is blank but required` }));
         continue;
       }
@@ -139,9 +145,7 @@ export async function runPlan(plan: Plan, batches: AsyncIterable<readonly RawRec
         emit(col.typeCheck, rowNo, line, () => ({ column: col.name, value: cellValue(raw, col.sensitive), expected: col.expected, message: `${col.name} ${shownValue(raw, col.sensitive)} is not ${col.expected}` }));
         continue;
       }
-      if (col.spacesCheck >= 0 && raw !== text) {
-        emit(col.spacesCheck, rowNo, line, () => ({ column: col.name, value: cellValue(raw, col.sensitive), expected: "no leading or trailing spaces", message: `${col.name} ${shownValue(raw, col.sensitive)} has leading or trailing spaces` }));
-      }
+      if (col.spacesCheck >= 0 && raw !== text) emitSpaces(col, raw, rowNo, line);
       const checks = col.cellChecks;
       for (let c = 0; c < checks.length; c++) {
         const cc = checks[c] as (typeof checks)[number];

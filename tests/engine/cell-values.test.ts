@@ -1,10 +1,10 @@
 /**
- * Pending disagreements with SPEC about cells padded with spaces.
- * - SPEC §4 `value` is the cell's value (the example shows "0.9"); the engine wraps padded or blank
- *   cells in JSON quotes inside the string (`"\" 3\""`), which a consumer cannot tell from a cell that
- *   really holds quote marks. Quoting for visibility belongs to the text writers.
+ * Cells padded with spaces.
+ * - SPEC §4 `value` is the cell's value (the example shows "0.9"), not a quoted rendering of it.
  * - SPEC §1.1: "A cell that fails to parse as its type is one finding (<column>.type) and its other
- *   checks are skipped"; the engine also reports <column>.spaces for that cell.
+ *   checks are skipped", spaces included.
+ * - SPEC §1.1: "a cell whose raw text had leading or trailing spaces is also a finding
+ *   (<column>.spaces, level warning)": a blank marker written with spaces (" NA ") had spaces too.
  */
 import { describe, expect, it } from "vitest";
 import { checkJson } from "../helpers/cli.js";
@@ -29,5 +29,12 @@ describe("padded cells", () => {
     const { report } = await checkJson(contract, "a,b\n x ,y\n");
     expectFinding(report, { rule: "a.type", row: 1, line: 2, column: "a", level: "error" });
     expectNoFinding(report, { rule: "a.spaces", row: 1 });
+  });
+
+  it("a blank marker written with spaces is a spaces finding besides required; spaces alone are just blank", async () => {
+    const c = 'tablegate: 1\nname: m\ninput:\n  blank: ["", "NA"]\ncolumns:\n  emp: { type: integer, required: true }\n  n: { type: integer }\n';
+    const { report } = await checkJson(c, "emp,n\n NA,1\nNA ,2\n NA ,3\nNA,4\n   ,5\n");
+    const rows = (rule: string) => report.findings.filter((f) => f.rule === rule).map((f) => f.row);
+    expect({ spaces: rows("emp.spaces"), required: rows("emp.required") }).toEqual({ spaces: [1, 2, 3], required: [1, 2, 3, 4, 5] });
   });
 });
