@@ -1,3 +1,7 @@
+import type { ColumnSpec } from "../contract/types.js";
+import { keyText } from "../engine/key-text.js";
+import { parseBound } from "../types/bound.js";
+import type { Value } from "../values.js";
 import { miss, type CheckDefinition } from "./definition.js";
 
 const LISTED = 8;
@@ -7,7 +11,28 @@ function listing(values: readonly string[]): string {
   return values.length > LISTED ? `${shown}, ... (${values.length} codes)` : shown;
 }
 
-/** `codes`: the trimmed text must be one of a list, or one of a registry table column's values. */
+/**
+ * A code as a value of the column's type, compared as keys compare (`01` is the code 1 in an integer
+ * column, a date code is written ISO 8601 as bounds are); undefined when it is no such value.
+ */
+function typedCode(spec: ColumnSpec, code: string | number): Value | undefined {
+  switch (spec.type) {
+    case "integer":
+    case "decimal": {
+      const n = typeof code === "number" ? code : /^\s*[-+]?(\d+\.?\d*|\.\d+)\s*$/.test(code) ? Number(code) : Number.NaN;
+      return Number.isFinite(n) && (spec.type === "decimal" || Number.isInteger(n)) ? n : undefined;
+    }
+    case "boolean":
+      return code === "true" ? true : code === "false" ? false : undefined;
+    default:
+      return parseBound(spec, code);
+  }
+}
+
+/**
+ * `codes`: the cell must be one of a list, or one of a registry table column's values. Text compares
+ * as trimmed text; other types compare by value, as keys do.
+ */
 export const codes: CheckDefinition = {
   name: "codes",
   key: "codes",
@@ -17,10 +42,20 @@ export const codes: CheckDefinition = {
     if (c === undefined) return undefined;
     let allowed: ReadonlySet<string>;
     let where: string;
+    const typed = spec.type !== "text";
     if (Array.isArray(c)) {
-      // A number keeps the digits the contract wrote: `2.50` allows the cell "2.50".
-      allowed = new Set(c.map((v, i) => (typeof v === "number" ? (ctx.writtenNumber(["codes", i]) ?? String(v)) : v)));
-      where = listing([...allowed]);
+      // A number keeps the digits the contract wrote: `2.50` is listed as 2.50.
+      const written = c.map((v, i) => (typeof v === "number" ? (ctx.writtenNumber(["codes", i]) ?? String(v)) : v));
+      if (typed) {
+        const keys = new Set<string>();
+        for (let i = 0; i < c.length; i++) {
+          const v = typedCode(spec, c[i] as string | number);
+          if (v === undefined) return [{ path: ["codes", i], message: `code ${JSON.stringify(c[i])} is not a ${spec.type} value${spec.type === "date" || spec.type === "timestamp" || spec.type === "time" ? " written as ISO 8601" : ""}` }];
+          keys.add(keyText(v, String(c[i])));
+        }
+        allowed = keys;
+      } else allowed = new Set(written);
+      where = listing(written);
     } else {
       const { table, column } = c as { table: string; column: string };
       const set = ctx.codeSet(table, column);
@@ -28,10 +63,21 @@ export const codes: CheckDefinition = {
         const wrong = set as { field: "table" | "column"; message: string };
         return [{ path: ["codes", wrong.field], message: wrong.message }];
       }
-      allowed = set;
+      if (typed) {
+        // Table cells that are no value of this column's type can never match one.
+        const keys = new Set<string>();
+        for (const code of set) {
+          const v = typedCode(spec, code);
+          if (v !== undefined) keys.add(keyText(v, code));
+        }
+        allowed = keys;
+      } else allowed = set;
       where = `a value of column ${column} in reference table ${table}`;
     }
     const m = miss(Array.isArray(c) ? `one of ${where}` : where, Array.isArray(c) ? "is not an allowed code" : `is not ${where}`);
-    return { description: `${ctx.column} is ${Array.isArray(c) ? `one of ${where}` : where}`, test: (_v, text) => (allowed.has(text) ? undefined : m) };
+    return {
+      description: `${ctx.column} is ${Array.isArray(c) ? `one of ${where}` : where}`,
+      test: typed ? (v: Value, text: string) => (allowed.has(keyText(v, text)) ? undefined : m) : (_v: Value, text: string) => (allowed.has(text) ? undefined : m),
+    };
   },
 };

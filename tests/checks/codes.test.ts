@@ -15,7 +15,9 @@ describe("inline codes", () => {
     expect(["WEST", "SOUTH", "west", "EAST", "WEST "].map((t) => judge(check, spec, t) === undefined)).toEqual([true, true, false, false, false]);
   });
 
-  it("numbers in the list compare as text", () => {
+  // A typed column's codes are values of its type, compared as keys compare them (as a SQL IN list over
+  // an INTEGER column compares values: 01 = 1; ISO/IEC 9075 comparison of exact numerics).
+  it("numbers in the list compare as numbers in a numeric column", () => {
     const nums: ColumnSpec = { type: "integer", codes: [1, 2, 10] };
     const check = compiled("codes", nums);
     expect(["1", "2", "10", "3", "01", "+1"].map((t) => [t, judge(check, nums, t) === undefined])).toEqual([
@@ -23,14 +25,27 @@ describe("inline codes", () => {
       ["2", true],
       ["10", true],
       ["3", false],
-      ["01", false],
-      ["+1", false],
+      ["01", true],
+      ["+1", true],
     ]);
   });
 
-  it("codes apply to other types on their text: a decimal column with a list", () => {
+  it("a decimal column's codes match by value, whether written as text or as numbers", () => {
     expect(passes("codes", { type: "decimal", codes: ["0.5", "1.5"] }, "1.5")).toBe(true);
-    expect(passes("codes", { type: "decimal", codes: ["0.5", "1.5"] }, "1.50")).toBe(false);
+    expect(passes("codes", { type: "decimal", codes: ["0.5", "1.5"] }, "1.50")).toBe(true);
+    expect(passes("codes", { type: "decimal", codes: [0.5, 1] }, "1.0")).toBe(true);
+    expect(passes("codes", { type: "decimal", codes: [0.5, 1] }, "0.51")).toBe(false);
+  });
+
+  it("a date column's codes are ISO 8601 dates, matched whatever format the cell uses", () => {
+    const dates: ColumnSpec = { type: "date", format: "%d/%m/%Y", codes: ["2026-12-24", "2026-12-31"] };
+    expect(passes("codes", dates, "24/12/2026")).toBe(true);
+    expect(passes("codes", dates, "25/12/2026")).toBe(false);
+  });
+
+  it("a code that is no value of the column's type is a contract error at its place", () => {
+    expect(specErrors("codes", { type: "integer", codes: [1, "A1"] }).map((e) => e.path)).toEqual([["codes", 1]]);
+    expect(specErrors("codes", { type: "date", codes: ["24/12/2026"] }).map((e) => e.path)).toEqual([["codes", 0]]);
   });
 
   it("a one-code list and repeats in the list work", () => {
@@ -97,5 +112,13 @@ describe("registry codes through a compiled contract and the built-in tables", (
     const verdict = (t: string) => tests[0]?.test(t, t, { values: [t], texts: [t] }) === undefined;
     // ISO 3166-1 alpha-2: US, DE and JP are assigned, XX is user-assigned and never a country (from memory).
     expect(["US", "DE", "JP", "XX", "us"].map(verdict)).toEqual([true, true, true, false, false]);
+  });
+});
+
+describe("registry codes on a typed column", () => {
+  it("compare table cells and delivery cells by value", () => {
+    const ctx = fakeContext({ codeSet: () => new Set(["5", "10", "n/a"]) });
+    const spec: ColumnSpec = { type: "integer", codes: { table: "ship-methods", column: "transit_days" } };
+    expect(["5", "05", "10", "7"].map((t) => passes("codes", spec, t, ctx))).toEqual([true, true, true, false]);
   });
 });
