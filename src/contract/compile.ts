@@ -67,6 +67,13 @@ export function compilePlan({ src, spec, sha256, registry, today = todayDays() }
     headerDuplicate: addCheck("header.duplicate", "error", "no header name appears twice", { path: ["columns"] }),
   };
 
+  const input = spec.input ?? {};
+  const format = input.format ?? "csv";
+  // SPEC: delimiter and quote are csv only; a TSV splits on tabs and never quotes, NDJSON has neither.
+  for (const key of ["delimiter", "quote"] as const) {
+    if (format !== "csv" && input[key] !== undefined) problems.push(problemAt(src, ["input"], `option "${key}" applies to csv input only; a ${format} file ${format === "tsv" ? "splits on tabs and has no quoting" : "has one JSON object per line"}`, { key }));
+  }
+
   const names = Object.keys(spec.columns);
   const columnIndex = (name: string): number | undefined => {
     const i = names.indexOf(name);
@@ -115,10 +122,11 @@ export function compilePlan({ src, spec, sha256, registry, today = todayDays() }
     for (const key of Object.keys(col)) {
       if (COMMON_OPTIONS.has(key) || PARSER_OPTIONS[col.type].includes(key)) continue;
       const def = CHECKS[key];
-      if (key === "postal" ? col.type !== "text" : def && !def.types.includes(col.type)) {
+      // Anything else is an option of another type (percent on an integer) or a check that does not apply.
+      if (key === "postal" ? col.type !== "text" : !def || !def.types.includes(col.type)) {
         const fits = Object.entries(PARSER_OPTIONS).filter(([, o]) => o.includes(key)).map(([t]) => t);
         const types = def ? [...new Set([...def.types, ...fits])] : fits;
-        problems.push(problemAt(src, base, `option "${key}" does not apply to a ${col.type} column; it applies to ${types.join(", ")}`, { key }));
+        problems.push(problemAt(src, base, `option "${key}" does not apply to ${/^[aeiou]/.test(col.type) ? "an" : "a"} ${col.type} column; it applies to ${types.join(", ")}`, { key }));
       }
     }
     const typed = compileType(col);
@@ -237,8 +245,6 @@ export function compilePlan({ src, spec, sha256, registry, today = todayDays() }
     const t = registry.table(name);
     return { table: name, version: t?.version ?? "", sha256: t?.sha256 ?? "" };
   });
-  const input = spec.input ?? {};
-  const format = input.format ?? "csv";
   const plan: Plan = {
     name: spec.name,
     ...(spec.version === undefined ? {} : { version: spec.version }),

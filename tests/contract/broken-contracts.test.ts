@@ -55,6 +55,23 @@ const cases: readonly BrokenCase[] = [
     at: [[4, 30]],
   },
   {
+    // SPEC §1.1 lists percent under decimal only.
+    name: "an option of another column type (percent on an integer)",
+    contract: head + "columns:\n  share: { type: integer, percent: true }\n",
+    at: [[4, 27]],
+  },
+  {
+    name: "a boolean's values on a text column",
+    contract: head + "columns:\n  flag:\n    type: text\n    values: { true: [Y], false: [N] }\n",
+    at: [[6, 5]],
+  },
+  {
+    // SPEC §1: "delimiter: ... # csv only".
+    name: "a delimiter on a tsv input",
+    contract: head + "input:\n  format: tsv\n  delimiter: ';'\ncolumns:\n  a: { type: text }\n",
+    at: [[5, 3]],
+  },
+  {
     name: "bad expression, plain scalar: the second > of qty >> 3",
     contract: head + "columns:\n  qty: { type: integer }\nrules:\n  - id: r1\n    assert: qty >> 3\n",
     at: [[7, 18]],
