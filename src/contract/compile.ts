@@ -3,7 +3,7 @@ import { compileExpression, type CompiledExpr, type ReferenceLookup } from "../e
 import { typedCell } from "../registry/typed-cell.js";
 import type { Problem } from "../problem.js";
 import type { Registry } from "../registry/index.js";
-import { compileType, todayDays } from "../types/index.js";
+import { compareValues, compileType, parseBound, todayDays } from "../types/index.js";
 import { suggestion } from "./near-miss.js";
 import type { CellCheckPlan, CheckMeta, ColumnPlan, FileChecks, GroupPlan, KeyPlan, OutlierPlan, Plan, RulePlan } from "./plan.js";
 import type { SpecError } from "./spec-error.js";
@@ -131,6 +131,16 @@ export function compilePlan({ src, spec, sha256, registry, today = todayDays() }
     }
     const typed = compileType(col);
     if (!typed.ok) report(base, typed.errors);
+    // Limits no value can meet are a mistake in the contract, not in every row of the delivery.
+    if (col.min !== undefined && col.max !== undefined) {
+      const lo = parseBound(col, col.min);
+      const hi = parseBound(col, col.max);
+      const order = lo === undefined || hi === undefined ? null : compareValues(lo, hi);
+      if (order !== null && order > 0) problems.push(problemAt(src, base, `max ${String(col.max)} is below min ${String(col.min)}: no value could pass`, { key: "max" }));
+    }
+    if (col.min_length !== undefined && col.max_length !== undefined && col.min_length > col.max_length) {
+      problems.push(problemAt(src, base, `max_length ${col.max_length} is below min_length ${col.min_length}: no value could pass`, { key: "max_length" }));
+    }
     const ctx: CheckContext = {
       column: name,
       columnIndex,
@@ -179,6 +189,11 @@ export function compilePlan({ src, spec, sha256, registry, today = todayDays() }
     const path: YamlPath = ["keys", i];
     const idx = list.map((c, j) => needColumn(c, typeof entry === "string" ? path : [...path, j]));
     if (idx.some((x) => x === undefined)) return;
+    const again = list.findIndex((c, j) => list.indexOf(c) !== j);
+    if (again >= 0) {
+      problems.push(problemAt(src, [...path, again], `column "${list[again]}" appears twice in this key`));
+      return;
+    }
     keys.push({ check: addCheck(`key:${list.join("+")}`, "error", `${list.join(" + ")} is unique`, { path }), columns: idx as number[] });
   });
 

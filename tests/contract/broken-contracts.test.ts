@@ -72,6 +72,21 @@ const cases: readonly BrokenCase[] = [
     at: [[5, 3]],
   },
   {
+    name: "a max below the min: no value could pass",
+    contract: head + "columns:\n  age:\n    type: integer\n    min: 12\n    max: 8\n",
+    at: [[7, 5]],
+  },
+  {
+    name: "a max_length below the min_length",
+    contract: head + "columns:\n  code: { type: text, min_length: 8, max_length: 4 }\n",
+    at: [[4, 38]],
+  },
+  {
+    name: "a column twice in one key",
+    contract: head + "columns:\n  worker: { type: text }\nkeys:\n  - [worker, worker]\n",
+    at: [[6, 14]],
+  },
+  {
     name: "bad expression, plain scalar: the second > of qty >> 3",
     contract: head + "columns:\n  qty: { type: integer }\nrules:\n  - id: r1\n    assert: qty >> 3\n",
     at: [[7, 18]],
