@@ -1,5 +1,7 @@
 import { createHash } from "node:crypto";
+import { isUtf8 } from "node:buffer";
 import { readFile } from "node:fs/promises";
+import { firstInvalid } from "../input/utf8.js";
 import type { Problem, Result } from "../problem.js";
 import type { Registry } from "../registry/index.js";
 import { schemaValidator } from "../schema/validator.js";
@@ -31,13 +33,22 @@ export function compileContract(file: string, text: string, options: LoadOptions
 
 /** Read and compile a contract file; an unreadable file is a problem naming it. */
 export async function loadContract(file: string, options: LoadOptions): Promise<Result<Plan>> {
-  let text: string;
+  let bytes: Buffer;
   const label = options.label ?? file;
   try {
-    text = await readFile(file, "utf8");
+    bytes = await readFile(file);
   } catch (e) {
     const problem: Problem = { file: label, message: `cannot read contract: ${(e as NodeJS.ErrnoException).code === "ENOENT" ? "no such file" : (e as Error).message}` };
     return { ok: false, problems: [problem] };
   }
-  return compileContract(label, text, options);
+  // YAML 1.2 files are Unicode; a byte that is not UTF-8 would silently become U+FFFD in a name or code.
+  if (!isUtf8(bytes)) return { ok: false, problems: [{ file: label, ...firstBadByte(bytes), message: "the contract is not valid UTF-8 here; save it as UTF-8" }] };
+  return compileContract(label, bytes.toString("utf8"), options);
+}
+
+/** Line and column (in characters) of the first byte that breaks UTF-8. */
+function firstBadByte(bytes: Buffer): { line: number; column: number } {
+  const at = Math.max(0, firstInvalid(bytes, 0, bytes.length));
+  const lines = bytes.subarray(0, at).toString("utf8").split("\n");
+  return { line: lines.length, column: (lines[lines.length - 1]?.length ?? 0) + 1 };
 }

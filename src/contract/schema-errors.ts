@@ -93,6 +93,9 @@ export function schemaProblems(src: YamlSource, data: unknown, errors: readonly 
       case "const":
         push(path, `expected ${describeValue(e.params.allowedValue)}; got ${describeValue(value)}`);
         break;
+      case "minItems":
+        push(path, Number(e.params.limit) === 1 ? "an empty list: give at least one item" : `a list of at least ${String(e.params.limit)} items is needed here`);
+        break;
       case "pattern":
         push(path, `${describeValue(value)} does not match ${String(e.params.pattern)}`);
         break;

@@ -19,7 +19,9 @@ export function parseYamlSource(file: string, text: string): YamlSource {
   const doc = parseDocument(text, { lineCounter: lines, prettyErrors: false, uniqueKeys: true });
   const syntaxProblems = doc.errors.map((e): Problem => {
     const pos = lines.linePos(e.pos[0]);
-    return { file, line: pos.line, column: pos.col, message: firstLine(e.message) };
+    // The library's advice for a second document is for programmers; say what is wrong with the file.
+    const message = e.code === "MULTIPLE_DOCS" ? "a contract is one YAML document; this starts a second one (---)" : firstLine(e.message);
+    return { file, line: pos.line, column: pos.col, message };
   });
   return { file, text, doc, lines, syntaxProblems };
 }

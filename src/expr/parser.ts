@@ -41,7 +41,7 @@ export function parse(source: string): { ok: true; node: Node } | SyntaxFailure 
       next();
       return true;
     }
-    expected(`')' to close '(' at ${open.start}`);
+    expected(`')' to close the '(' at character ${open.start + 1} of the expression`);
     return false;
   };
 
@@ -156,7 +156,7 @@ export function parse(source: string): { ok: true; node: Node } | SyntaxFailure 
         if (!isOp(peek(), ",")) break;
         next();
       }
-      if (!isOp(peek(), ")")) return expected(`',' or ')' to close '(' at ${open.start}`);
+      if (!isOp(peek(), ")")) return expected(`',' or ')' to close the '(' at character ${open.start + 1} of the expression`);
       const end = next().end;
       return { type: "in", negated, operand, items, start: operand.start, end };
     }
@@ -264,7 +264,7 @@ export function parse(source: string): { ok: true; node: Node } | SyntaxFailure 
             next();
           }
         }
-        if (!isOp(peek(), ")")) return expected(`${args.length > 0 ? "',' or " : ""}')' to close '(' at ${open.start}`);
+        if (!isOp(peek(), ")")) return expected(`${args.length > 0 ? "',' or " : ""}')' to close the '(' at character ${open.start + 1} of the expression`);
         const end = next().end;
         return { type: "call", name: t.value, nameEnd: t.end, args, star, start: t.start, end };
       }

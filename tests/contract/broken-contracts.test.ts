@@ -87,6 +87,16 @@ const cases: readonly BrokenCase[] = [
     at: [[6, 14]],
   },
   {
+    name: "an empty codes list: one message",
+    contract: head + "columns:\n  a: { type: text, codes: [] }\n",
+    at: [[4, 27]],
+  },
+  {
+    name: "a second YAML document in the contract file",
+    contract: head + "columns:\n  a: { type: text }\n---\nname: y\n",
+    at: [[5, 1]],
+  },
+  {
     name: "bad expression, plain scalar: the second > of qty >> 3",
     contract: head + "columns:\n  qty: { type: integer }\nrules:\n  - id: r1\n    assert: qty >> 3\n",
     at: [[7, 18]],
@@ -241,5 +251,18 @@ describe("broken contracts", () => {
     const lines = r.stderr.split("\n").filter((l) => l.trim() !== "");
     expect({ code: r.code, lines: lines.length }).toEqual({ code: 2, lines: 1 });
     expect(r.stderr).toContain("nowhere.yaml");
+  });
+});
+
+describe("a contract that is not UTF-8", () => {
+  // YAML 1.2 (section 5.2) streams are Unicode; a Latin-1 byte would silently become U+FFFD.
+  it("is refused at the first bad byte, in one line", async () => {
+    const bytes = Buffer.concat([Buffer.from(head + 'columns:\n  a: { type: text, description: "caf'), Buffer.from([0xe9]), Buffer.from('" }\n')]);
+    for (const command of ["lint", "check"] as const) {
+      const argv = command === "lint" ? ["lint", "contract.yaml"] : ["check", "data.csv", "--contract", "contract.yaml"];
+      const r = await runCli(argv, { "contract.yaml": bytes, "data.csv": "a\n1\n" });
+      expect({ code: r.code, lines: r.stderr.trim().split("\n").length }).toEqual({ code: 2, lines: 1 });
+      expect(r.stderr).toMatch(/contract\.yaml:4:37: /);
+    }
   });
 });
