@@ -13,6 +13,15 @@ export function unusable(io: Io, problems: readonly Problem[]): number {
  */
 export function badArgument(io: Io, message: string): number {
   const [problem = "", usage] = message.split("\nusage: ");
-  io.stderr(`tablegate: ${problem.replace(/\s*\n\s*/g, " ")}\n${usage === undefined ? "" : `usage: ${usage}\n`}`);
+  io.stderr(`tablegate: ${plainer(problem.replace(/\s*\n\s*/g, " "))}\n${usage === undefined ? "" : `usage: ${usage}\n`}`);
   return EXIT.unusable;
+}
+
+/** Node's argument parser, said shorter: a value that looks like an option, an option it does not know. */
+function plainer(message: string): string {
+  const ambiguous = /^Option '(--[\w-]+)' argument is ambiguous/.exec(message);
+  if (ambiguous) return `option ${ambiguous[1]} needs a value; what follows it looks like an option (write ${ambiguous[1]}=<value> to pass it anyway)`;
+  const unknown = /^Unknown option '([^']+)'/.exec(message);
+  if (unknown) return `unknown option ${unknown[1]}`;
+  return message;
 }
