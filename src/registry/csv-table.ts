@@ -1,5 +1,6 @@
 import { createHash } from "node:crypto";
 import { parse } from "csv-parse/sync";
+import { firstInvalid } from "../input/utf8.js";
 import { fail, ok, type Problem, type Result } from "../problem.js";
 import type { ManifestTable, RefColumnType } from "./manifest.js";
 import { makeRefTable, type RefTable } from "./ref-table.js";
@@ -49,14 +50,27 @@ function readRecords(bytes: Uint8Array, file: string): Result<ParsedRecord[]> {
   try {
     text = new TextDecoder("utf-8", { fatal: true }).decode(bytes);
   } catch {
-    return fail({ file, message: "table is not valid UTF-8" });
+    const buf = Buffer.from(bytes.buffer, bytes.byteOffset, bytes.byteLength);
+    const at = Math.max(0, firstInvalid(buf, 0, buf.length));
+    return fail({ file, line: buf.subarray(0, at).toString("utf8").split("\n").length, message: "table is not valid UTF-8 on this line" });
   }
   let raw: { record: string[]; info: { lines: number; empty_lines: number } }[];
+  // Where the last good record ended, so a record that cannot be read is named by the line it starts on.
+  let lastEnd = 0;
+  let lastEmpty = 0;
   try {
-    raw = parse(text, { info: true, bom: true, relax_column_count: true, skip_empty_lines: true }) as unknown as typeof raw;
+    raw = parse(text, {
+      info: true, bom: true, relax_column_count: true, skip_empty_lines: true,
+      on_record: (record: string[], context: { lines: number; empty_lines: number }) => {
+        lastEnd = context.lines;
+        lastEmpty = context.empty_lines;
+        return record;
+      },
+    }) as unknown as typeof raw;
   } catch (e) {
-    const err = e as { lines?: number; code?: string; message?: string };
-    return fail({ file, ...(typeof err.lines === "number" ? { line: err.lines } : {}), message: `table is not readable CSV (${err.code ?? "parse error"})` });
+    const err = e as { empty_lines?: number; code?: string };
+    const line = lastEnd + 1 + Math.max(0, (err.empty_lines ?? lastEmpty) - lastEmpty);
+    return fail({ file, line, message: `the record starting on this line is not readable CSV (${err.code ?? "parse error"})` });
   }
   const out: ParsedRecord[] = [];
   let prevEnd = 0;

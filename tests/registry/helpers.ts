@@ -3,7 +3,7 @@ import { tmpdir } from "node:os";
 import { dirname, join } from "node:path";
 
 /** A fresh temporary folder with the given files (paths relative to it). */
-export async function tempRepo(files: Record<string, string>): Promise<string> {
+export async function tempRepo(files: Record<string, string | Uint8Array>): Promise<string> {
   const root = await mkdtemp(join(tmpdir(), "tg-registry-"));
   for (const [path, text] of Object.entries(files)) {
     await mkdir(dirname(join(root, path)), { recursive: true });

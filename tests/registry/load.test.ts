@@ -95,6 +95,14 @@ describe("loadRegistry", () => {
     expect(tableProblems(await loadRegistry(root)).map((p) => p.line)).toEqual([5]);
   });
 
+  it("names the line where an unreadable record starts, and the line of a byte that is not UTF-8", async () => {
+    const quote = await tempRepo({ "reference/registry.yaml": COLORS_YAML, "reference/colors.csv": 'code,name,rank\nRED,"Red,1\nGRN,Green,2\nBLU,Blue,3\n' });
+    expect(tableProblems(await loadRegistry(quote)).map((p) => p.line)).toEqual([2]);
+    const bytes = Buffer.concat([Buffer.from("code,name,rank\nRED,Red,1\nGRN,Gr"), Buffer.from([0xe9]), Buffer.from("en,2\n")]);
+    const latin = await tempRepo({ "reference/registry.yaml": COLORS_YAML, "reference/colors.csv": bytes });
+    expect(tableProblems(await loadRegistry(latin)).map((p) => p.line)).toEqual([3]);
+  });
+
   it("requires declared columns to match the header", async () => {
     const root = await tempRepo({ "reference/registry.yaml": COLORS_YAML, "reference/colors.csv": "code,label,rank\nRED,Red,1\n" });
     const ps = tableProblems(await loadRegistry(root));
