@@ -1,4 +1,7 @@
+import { keyText } from "../engine/key-text.js";
+import type { RefColumnType } from "./manifest.js";
 import type { RefTable } from "./ref-table.js";
+import { typedCell } from "./typed-cell.js";
 
 /** One cell that differs between two versions of a row. */
 export interface CellChange {
@@ -30,7 +33,7 @@ export function isEmptyDiff(d: TableDiff): boolean {
 /** Compare two versions of a table by key (each version's own key column). */
 export function diffTables(before: RefTable, after: RefTable): TableDiff {
   const shared = after.columns
-    .map((c, ai) => ({ column: c, ai, bi: before.columns.indexOf(c) }))
+    .map((c, ai) => ({ column: c, ai, bi: before.columns.indexOf(c), type: after.types[ai] }))
     .filter((c) => c.bi >= 0);
   const added: string[] = [];
   const changed: { key: string; changes: CellChange[] }[] = [];
@@ -43,10 +46,10 @@ export function diffTables(before: RefTable, after: RefTable): TableDiff {
     }
     if (!a) continue;
     const changes: CellChange[] = [];
-    for (const { column, ai, bi } of shared) {
+    for (const { column, ai, bi, type } of shared) {
       const va = a[ai] ?? "";
       const vb = b[bi] ?? "";
-      if (va !== vb) changes.push({ column, before: vb, after: va });
+      if (va !== vb && !sameValue(type, va, vb)) changes.push({ column, before: vb, after: va });
     }
     if (changes.length > 0) changed.push({ key, changes });
   }
@@ -60,4 +63,10 @@ export function diffTables(before: RefTable, after: RefTable): TableDiff {
     removed: before.keys().filter((k) => after.row(k) === undefined),
     changed,
   };
+}
+
+/** In a typed column, cells that spell one value (55000 and 55000.00) are no change for any check. */
+function sameValue(type: RefColumnType | undefined, a: string, b: string): boolean {
+  if (type === undefined || type === "text" || a === "" || b === "") return false;
+  return keyText(typedCell(type, a), a) === keyText(typedCell(type, b), b);
 }

@@ -25,6 +25,12 @@ describe("diffTables", () => {
     expect(isEmptyDiff(diffTables(before, table(COLORS_CSV)))).toBe(true);
   });
 
+  it("a typed cell rewritten as the same value is no change; a text cell rewritten is", () => {
+    // rank is an integer column: 01 and 1 are one value. name is text: case and spelling count.
+    const d = diffTables(table(COLORS_CSV), table("code,name,rank\nRED,Red,01\nGRN,green,2\nBLU,Blue,3\n"));
+    expect(d.changed).toEqual([{ key: "GRN", changes: [{ column: "name", before: "Green", after: "green" }] }]);
+  });
+
   it("reports columns added and removed, comparing only shared ones", () => {
     const yamlB = "tables:\n  colors:\n    file: c.csv\n    key: code\n    version: 2\n";
     const d = diffTables(table(COLORS_CSV), table("code,name,hex\nRED,Red,#f00\nGRN,Green,#0f0\nBLU,Blue,#00f\n", yamlB));
