@@ -19,8 +19,9 @@ const MAX_PROBLEMS = 50;
 
 const TYPE_CHECKS: Record<RefColumnType, (v: string) => boolean> = {
   text: () => true,
-  integer: (v) => /^-?[0-9]+$/.test(v),
-  decimal: (v) => /^-?[0-9]+(\.[0-9]+)?$/.test(v),
+  // As a delivery's integer and decimal columns read them: a sign may lead, a decimal may start or end with its point.
+  integer: (v) => /^[+-]?[0-9]+$/.test(v),
+  decimal: (v) => /^[+-]?([0-9]+(\.[0-9]*)?|\.[0-9]+)$/.test(v),
   boolean: (v) => v === "true" || v === "false",
   date: isIsoDate,
 };

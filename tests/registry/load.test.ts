@@ -103,6 +103,13 @@ describe("loadRegistry", () => {
     expect(tableProblems(await loadRegistry(latin)).map((p) => p.line)).toEqual([3]);
   });
 
+  it("reads numbers as a delivery's integer column does: a leading sign is fine, a decimal point is not", async () => {
+    const ok = await tempRepo({ "reference/registry.yaml": COLORS_YAML, "reference/colors.csv": "code,name,rank\nRED,Red,+1\nGRN,Green,-2\n" });
+    expect(tableProblems(await loadRegistry(ok))).toEqual([]);
+    const bad = await tempRepo({ "reference/registry.yaml": COLORS_YAML, "reference/colors.csv": "code,name,rank\nRED,Red,1.0\n" });
+    expect(tableProblems(await loadRegistry(bad)).map((p) => p.line)).toEqual([2]);
+  });
+
   it("requires declared columns to match the header", async () => {
     const root = await tempRepo({ "reference/registry.yaml": COLORS_YAML, "reference/colors.csv": "code,label,rank\nRED,Red,1\n" });
     const ps = tableProblems(await loadRegistry(root));
