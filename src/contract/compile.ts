@@ -58,12 +58,14 @@ export function compilePlan({ src, spec, sha256, registry, today = todayDays() }
   };
 
   const header = spec.input?.header ?? "exact";
+  const policyPath: YamlPath = spec.input?.header === undefined ? ["columns"] : ["input", "header"];
   const file: FileChecks = {
     structure: addCheck("file.structure", "error", "the file can be read to its end"),
     width: addCheck("row.width", "error", "every record has as many cells as the header"),
     headerMissing: addCheck("header.missing", "error", "the header names every declared column", { path: ["columns"] }),
-    headerUnexpected: addCheck("header.unexpected", header === "exact" ? "error" : "note", "the header names only declared columns", { path: ["columns"] }),
-    headerOrder: addCheck("header.order", "error", "the header lists the columns in declared order", { path: ["columns"] }),
+    // Whether extra or reordered columns count is the header policy's doing: point there when it is written.
+    headerUnexpected: addCheck("header.unexpected", header === "exact" ? "error" : "note", "the header names only declared columns", { path: policyPath }),
+    headerOrder: addCheck("header.order", "error", "the header lists the columns in declared order", { path: policyPath }),
     headerDuplicate: addCheck("header.duplicate", "error", "no header name appears twice", { path: ["columns"] }),
   };
 
