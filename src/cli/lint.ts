@@ -1,8 +1,8 @@
 import { isAbsolute, join } from "node:path";
-import { loadContract } from "../contract/load.js";
 import { formatProblem } from "../problem.js";
 import { loadProjectConfig } from "../project/config.js";
 import { loadRegistry } from "../registry/index.js";
+import { loadPlan } from "./check.js";
 import { EXIT, type Io } from "./io.js";
 import { badArgument, unusable } from "./problems.js";
 import { findRoot, reportPath } from "./root.js";
@@ -19,7 +19,8 @@ export async function lint(argv: readonly string[], io: Io): Promise<number> {
   for (const file of argv) {
     const path = isAbsolute(file) ? file : join(io.cwd, file);
     const shown = reportPath(root, path);
-    const loaded = await loadContract(path, { registry: registry.value, label: shown });
+    // The same load as check: a contract whose tables left their lock is refused here too.
+    const loaded = await loadPlan(root, shown, registry.value);
     if (loaded.ok) {
       io.stdout(`${shown}: ok (${loaded.value.checks.length} checks)\n`);
       continue;

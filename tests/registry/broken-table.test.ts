@@ -54,4 +54,19 @@ describe("a table that does not load", () => {
     expect((await tg(root, "ref", "lint")).code).toBe(1);
     expect((await tg(root, "ref", "lock")).code).toBe(2);
   });
+
+  it("lint refuses, as check does, a contract whose table left its lock", async () => {
+    const root = await mkdtemp(join(tmpdir(), "tablegate-lint-lock-"));
+    await mkdir(join(root, ".git"));
+    for (const [path, text] of Object.entries(FILES)) {
+      await mkdir(dirname(join(root, path)), { recursive: true });
+      await writeFile(join(root, path), text);
+    }
+    expect((await tg(root, "ref", "lock")).code).toBe(0);
+    expect((await tg(root, "lint", "uses-kinds.yaml")).code).toBe(0);
+    await writeFile(join(root, "reference/kinds.csv"), "kind,unit\nTMP,c\nHUM,p\nPRS,h\n");
+    expect((await tg(root, "lint", "uses-kinds.yaml")).code).toBe(2);
+    expect((await tg(root, "check", "kinds.csv", "--contract", "uses-kinds.yaml")).code).toBe(2);
+    expect((await tg(root, "lint", "uses-categories.yaml")).code).toBe(0);
+  });
 });
