@@ -134,7 +134,10 @@ export function createFileEnd(plan: Plan, out: Collector) {
           const key = names
             .map((nm, i) => `${nm}=${texts[i] === "" ? "(blank)" : shownValue(texts[i] ?? "", plan.columns[g.plan.by[i] ?? 0]?.sensitive === true)}`)
             .join(", ");
-          const shown = g.plan.assert.aggregates.map((a, i) => `${a.fn}(${a.arg?.source ?? ""})=${formatValue(results[i] ?? null)}`).join(", ");
+          // An aggregate over a sensitive column (its first, min, max, even a one-row sum) is that column's value.
+          const shown = g.plan.assert.aggregates
+            .map((a, i) => `${a.fn}(${a.arg?.source ?? ""})=${shownValue(formatValue(results[i] ?? null), a.arg?.columns.some((c) => plan.columns[c]?.sensitive === true) === true)}`)
+            .join(", ");
           const count = g.rows[at] ?? 0;
           const span = count === 1 ? `row ${firstRow}` : `${count} rows, ${firstRow} to ${g.lastRow[at]}`;
           out.keep(g.plan.check, {
@@ -150,15 +153,17 @@ export function createFileEnd(plan: Plan, out: Collector) {
         const found = findOutliers(col, { method: o.method, k: o.k, threshold: o.threshold });
         const name = plan.columns[o.column]?.name ?? "";
         const sensitive = plan.columns[o.column]?.sensitive === true;
+        // Fences and a median come from the column's values (a median can be one of them): masked with it.
+        const stat = (x: number) => shownValue(formatValue(x), sensitive);
         const expected = found.fence
-          ? `between ${formatValue(found.fence.low)} and ${formatValue(found.fence.high)} (Tukey fences, k = ${o.k})`
-          : `modified z-score at most ${o.threshold} (median ${formatValue(found.median ?? 0)})`;
+          ? `between ${stat(found.fence.low)} and ${stat(found.fence.high)} (Tukey fences, k = ${o.k})`
+          : `modified z-score at most ${o.threshold} (median ${stat(found.median ?? 0)})`;
         for (const hit of found.outliers) {
           if (!out.fail(o.check, hit.row)) continue;
           const shown = shownValue(formatValue(hit.value), sensitive);
           const why = found.fence
-            ? `lies outside the Tukey fences ${formatValue(found.fence.low)} to ${formatValue(found.fence.high)} (k = ${o.k})`
-            : `has modified z-score ${(hit.score ?? 0).toFixed(2)}, beyond ±${o.threshold} (median ${formatValue(found.median ?? 0)})`;
+            ? `lies outside the Tukey fences ${stat(found.fence.low)} to ${stat(found.fence.high)} (k = ${o.k})`
+            : `has modified z-score ${(hit.score ?? 0).toFixed(2)}, beyond ±${o.threshold} (median ${stat(found.median ?? 0)})`;
           out.keep(o.check, { rule: rule(o.check), level: level(o.check), row: hit.row, line: lines?.at(hit.row - 1) ?? 0, column: name, value: shown, expected, message: `${name} ${shown} ${why}` });
         }
       });

@@ -43,6 +43,36 @@ describe("sensitive columns", () => {
   }
 });
 
+describe("sensitive columns in groups and outliers", () => {
+  // A group's aggregates over a sensitive column (first, max, a one-row sum) are that column's values,
+  // and an outlier's fences or median can be one of them too.
+  const contract = [
+    "tablegate: 1",
+    "name: pay",
+    "columns:",
+    "  dept: { type: text }",
+    "  full_name: { type: text, sensitive: true }",
+    "  salary: { type: decimal, sensitive: true }",
+    "groups:",
+    "  - id: capped",
+    "    by: [dept]",
+    "    assert: max(salary) < 5000 AND first(full_name) = 'nobody' AND sum(salary) < 1",
+    "outliers:",
+    "  - { column: salary, method: mad, threshold: 1 }",
+    "",
+  ].join("\n");
+  const data = "dept,full_name,salary\nA,Tamsin Ashgrove,7123.45\nB,Orrin Fell,4100.10\nB,Ivo Marsh,4100.20\nB,Lark Penn,4100.30\nB,Wren Holt,9999.99\n";
+  const secrets = ["Tamsin", "Ashgrove", "7123.45", "4100.2", "9999.99"];
+
+  for (const format of ["json", "text", "sarif", "junit", "codequality", "github", "html"]) {
+    it(`no raw sensitive value in the ${format} report`, async () => {
+      const r = await runCli(["check", "d.csv", "--contract", "c.yaml", "--report", `${format}=-`], { "c.yaml": contract, "d.csv": data });
+      expect(r.code).toBe(1);
+      for (const s of secrets) expect(r.stdout + r.stderr, `${format} shows ${s}`).not.toContain(s);
+    });
+  }
+});
+
 describe("checks[].source", () => {
   const contract = [
     "tablegate: 1", //        1
