@@ -234,15 +234,17 @@ export async function runPlan(plan: Plan, batches: AsyncIterable<readonly RawRec
     }
     options.onBatch?.(rows);
   }
-  if (header === undefined) {
+  const broke = structureBreak();
+  // An empty file has a header that names nothing; a file that broke before its header has none to judge.
+  if (header === undefined && broke === undefined) {
     header = matchHeader(plan, [], 1);
     for (const hf of header.findings) if (out.fail(hf.check, 0)) out.keep(hf.check, hf.finding);
   }
-  const broke = structureBreak();
   if (broke) {
     const meta = plan.checks[plan.file.structure];
     if (out.fail(plan.file.structure, 0)) {
-      out.keep(plan.file.structure, { rule: meta?.rule ?? "file.structure", level: "error", line: broke.line, expected: "a file readable to its end", message: `${broke.message}; reading stopped at line ${broke.line}, ${rows} records before it were checked` });
+      const before = rows === 1 ? "1 record before it was checked" : `${rows} records before it were checked`;
+      out.keep(plan.file.structure, { rule: meta?.rule ?? "file.structure", level: "error", line: broke.line, expected: "a file readable to its end", message: `${broke.message}; reading stopped at line ${broke.line}, ${before}` });
     }
   }
   end.finish(rows);

@@ -127,20 +127,20 @@ export async function* readCsv(
       if (d.invalid !== undefined) {
         settle();
         if (batch.length > 0) yield take();
-        return stop({ line: lineReached(), message: `reading stopped at ${d.invalid}` });
+        return stop({ line: lineReached(), message: `found ${d.invalid}` });
       }
     }
   } catch (e) {
     settle();
     if (batch.length > 0) yield take();
-    return stop({ line: lineReached(), message: `reading stopped: ${readError(e)}` });
+    return stop({ line: lineReached(), message: `the file could not be read further: ${readError(e)}` });
   }
   const last = decoder.end();
   const ok = feed(last.data);
   if (ok && last.invalid !== undefined) {
     settle();
     if (batch.length > 0) yield take();
-    return stop({ line: lineReached(), message: `reading stopped at ${last.invalid}` });
+    return stop({ line: lineReached(), message: `found ${last.invalid}` });
   }
   if (ok) parser._flush(done);
   if (batch.length > 0) yield take();

@@ -68,15 +68,15 @@ export async function* readNdjson(
       lines(text.write(d.data));
       if (batch.length > 0) yield take();
       if (broken !== undefined) return stop(broken);
-      if (d.invalid !== undefined) return stop({ line: line + 1, message: `reading stopped at ${d.invalid}` });
+      if (d.invalid !== undefined) return stop({ line: line + 1, message: `found ${d.invalid}` });
     }
   } catch (e) {
     if (batch.length > 0) yield take();
-    return stop({ line: line + 1, message: `reading stopped: ${readError(e)}` });
+    return stop({ line: line + 1, message: `the file could not be read further: ${readError(e)}` });
   }
   const last = decoder.end();
   lines(text.write(last.data));
-  if (broken === undefined && last.invalid !== undefined) broken = { line: line + 1, message: `reading stopped at ${last.invalid}` };
+  if (broken === undefined && last.invalid !== undefined) broken = { line: line + 1, message: `found ${last.invalid}` };
   if (broken === undefined && last.invalid === undefined) {
     const tail = rest + text.end();
     if (tail !== "") record(tail);
