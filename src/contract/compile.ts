@@ -53,6 +53,11 @@ export function compilePlan({ src, spec, sha256, registry, today = todayDays() }
   const addCheck = (rule: string, level: Level, description: string, at?: { path: YamlPath; key?: string }, allow?: number): number => {
     const pos = at ? problemAt(src, at.path, "", at.key === undefined ? {} : { key: at.key }) : undefined;
     const source = pos?.line === undefined ? undefined : { line: pos.line, column: pos.column ?? 1 };
+    // A rule id names one check (SPEC 1.2): two rules, groups, keys or outlier entries sharing one are a mistake.
+    const earlier = checks.find((c) => c.rule === rule);
+    if (earlier !== undefined && at !== undefined) {
+      problems.push(problemAt(src, at.path, `the check ${rule} is already declared${earlier.source ? ` at line ${earlier.source.line}` : ""}; give each its own id`, at.key === undefined ? {} : { key: at.key }));
+    }
     checks.push({ rule, level, description, ...(source ? { source } : {}), ...(allow === undefined ? {} : { allow }) });
     return checks.length - 1;
   };
@@ -243,6 +248,9 @@ export function compilePlan({ src, spec, sha256, registry, today = todayDays() }
   });
 
   const rowsSpec = spec.totals?.rows;
+  if (rowsSpec?.min !== undefined && rowsSpec.max !== undefined && rowsSpec.min > rowsSpec.max) {
+    problems.push(problemAt(src, ["totals", "rows"], `max ${rowsSpec.max} is below min ${rowsSpec.min}: no file could pass`, { key: "max" }));
+  }
   const totalRows = rowsSpec
     ? {
         check: addCheck("totals.rows", rowsSpec.level ?? "error", `between ${rowsSpec.min ?? 0} and ${rowsSpec.max ?? "any number of"} rows`, { path: ["totals"], key: "rows" }),

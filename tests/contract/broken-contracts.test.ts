@@ -97,6 +97,17 @@ const cases: readonly BrokenCase[] = [
     at: [[5, 1]],
   },
   {
+    // SPEC 1.2: a rule id names one check.
+    name: "two rules with one id: at the second",
+    contract: head + "columns:\n  qty: { type: integer }\nrules:\n  - id: r\n    assert: qty > 0\n  - id: r\n    assert: qty < 9\n",
+    at: [[8, 5]],
+  },
+  {
+    name: "totals.rows whose max is below its min",
+    contract: head + "columns:\n  a: { type: text }\ntotals:\n  rows: { min: 5, max: 2 }\n",
+    at: [[6, 19]],
+  },
+  {
     name: "bad expression, plain scalar: the second > of qty >> 3",
     contract: head + "columns:\n  qty: { type: integer }\nrules:\n  - id: r1\n    assert: qty >> 3\n",
     at: [[7, 18]],
