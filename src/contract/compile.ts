@@ -79,6 +79,12 @@ export function compilePlan({ src, spec, sha256, registry, today = todayDays() }
   // SPEC: delimiter and quote are csv only; a TSV splits on tabs and never quotes, NDJSON has neither.
   for (const key of ["delimiter", "quote"] as const) {
     if (format !== "csv" && input[key] !== undefined) problems.push(problemAt(src, ["input"], `option "${key}" applies to csv input only; a ${format} file ${format === "tsv" ? "splits on tabs and has no quoting" : "has one JSON object per line"}`, { key }));
+    // A line break or NUL cannot separate fields or quote them: records end at line breaks.
+    const c = input[key];
+    if (c !== undefined && /[\r\n\0]/.test(c)) problems.push(problemAt(src, ["input"], `${key} cannot be a line break or NUL`, { key }));
+  }
+  if (format === "csv" && (input.delimiter ?? ",") === (input.quote ?? '"')) {
+    problems.push(problemAt(src, ["input"], `delimiter and quote are both ${JSON.stringify(input.quote ?? '"')}; a field could not tell where it ends`, { key: input.quote !== undefined ? "quote" : "delimiter" }));
   }
 
   const names = Object.keys(spec.columns);

@@ -108,6 +108,16 @@ const cases: readonly BrokenCase[] = [
     at: [[6, 19]],
   },
   {
+    name: "a quote character equal to the delimiter",
+    contract: head + "input:\n  delimiter: '|'\n  quote: '|'\ncolumns:\n  a: { type: text }\n",
+    at: [[5, 3]],
+  },
+  {
+    name: "a line break as the delimiter",
+    contract: head + 'input:\n  delimiter: "\\n"\ncolumns:\n  a: { type: text }\n',
+    at: [[4, 3]],
+  },
+  {
     name: "bad expression, plain scalar: the second > of qty >> 3",
     contract: head + "columns:\n  qty: { type: integer }\nrules:\n  - id: r1\n    assert: qty >> 3\n",
     at: [[7, 18]],
