@@ -39,4 +39,17 @@ describe("gzip by file suffix", () => {
     expect(read.rows).toEqual([]);
     expect(read.stop?.line).toBe(1);
   });
+
+  it("a bad CRC in the gzip trailer stops reading at the end, losing at most the last 16 KiB inflated", async () => {
+    // RFC 1952 section 2.3.1: the member ends with CRC32 then ISIZE; flipping the CRC leaves the data whole.
+    const body = `n,text\n${Array.from({ length: 20000 }, (_, i) => `${i},item ${i}`).join("\n")}\n`;
+    const gz = Buffer.from(gzipSync(Buffer.from(body)));
+    gz[gz.length - 8] = (gz[gz.length - 8] ?? 0) ^ 0xff;
+    const read = await readBytes(gz, {}, ".csv.gz");
+    expect(read.stop).toBeDefined();
+    // Every record that ends before the last 16 KiB of the text is read.
+    const safe = body.slice(0, body.length - 16 * 1024).split("\n").length - 1;
+    expect(read.rows.length).toBeGreaterThanOrEqual(safe);
+    expect(read.rows.length).toBeLessThanOrEqual(20001);
+  });
 });
