@@ -1,8 +1,16 @@
 import type { Value } from "../values.js";
 
+/** An integer's digits as written, without grouping, a plus sign or leading zeros. */
+function bigDigits(text: string): string {
+  const digits = text.replace(/[^0-9]/g, "").replace(/^0+(?=\d)/, "");
+  return text.trimStart().startsWith("-") ? `-${digits}` : digits;
+}
+
 /** A key part as keys compare it: typed values by what they mean (`01` = `1`, `1.50` = `1.5`), text as written. */
 export function keyText(v: Value, text: string): string {
   if (typeof v === "string") return text;
+  // Beyond 2^53 two integers can share a double; their digits as written (sign, no zeros in front) still differ.
+  if (typeof v === "number" && Number.isInteger(v) && !Number.isSafeInteger(v) && !/[.eE]/.test(text)) return `n${bigDigits(text)}`;
   if (typeof v === "number" || typeof v === "boolean") return String(v);
   if (v === null) return "";
   return v.kind === "date" ? `d${v.days}` : v.kind === "timestamp" ? `t${v.ms}` : `s${v.seconds}`;

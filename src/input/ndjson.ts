@@ -1,4 +1,5 @@
 import { StringDecoder } from "node:string_decoder";
+import { memberSources } from "./json-members.js";
 import type { Decoder } from "./decode.js";
 import { readError } from "./csv.js";
 import type { RawRecord, StructureBreak } from "./types.js";
@@ -43,8 +44,16 @@ export async function* readNdjson(
       known = new Set(header);
       batch.push({ cells: header, line });
     }
-    const cells = header.map((k) => cellText(obj[k]));
-    for (const k of Object.keys(obj)) if (!known!.has(k)) cells.push(cellText(obj[k]));
+    // Numbers keep the digits the file wrote (2.50, 12345678901234567890): JSON.parse would round them.
+    let sources: Map<string, string> | undefined;
+    const text = (k: string): string => {
+      const v = obj[k];
+      if (typeof v !== "number") return cellText(v);
+      sources ??= memberSources(source);
+      return sources.get(k) ?? cellText(v);
+    };
+    const cells = header.map(text);
+    for (const k of Object.keys(obj)) if (!known!.has(k)) cells.push(text(k));
     batch.push({ cells, line });
   };
   const lines = (s: string): void => {
@@ -85,7 +94,7 @@ export async function* readNdjson(
   if (broken !== undefined) stop(broken);
 }
 
-/** A JSON value as cell text: strings as they are, null as blank, numbers and booleans in JSON form, objects as JSON. */
+/** A JSON value as cell text: strings as they are, null as blank, booleans in JSON form, objects as JSON. */
 function cellText(v: unknown): string {
   if (v === undefined || v === null) return "";
   if (typeof v === "string") return v;
