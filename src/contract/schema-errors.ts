@@ -1,6 +1,6 @@
 import type { ErrorObject } from "ajv";
 import type { Problem } from "../problem.js";
-import { suggestion } from "./near-miss.js";
+import { nearMiss, suggestion } from "./near-miss.js";
 import { problemAt, type YamlPath, type YamlSource } from "./yaml-source.js";
 
 type SchemaNode = Record<string, unknown>;
@@ -79,9 +79,13 @@ export function schemaProblems(src: YamlSource, data: unknown, errors: readonly 
         push(path, `unknown key "${name}"${suggestion(name, allowed)}; allowed here: ${allowed.join(", ")}`, name);
         break;
       }
-      case "required":
-        push(path, `missing required key "${String(e.params.missingProperty)}"`);
+      case "required": {
+        // A misspelt key ("contarct") is one mistake: its unknown-key message names the right one.
+        const missing = String(e.params.missingProperty);
+        const misspelt = errors.some((o) => o.keyword === "additionalProperties" && o.instancePath === e.instancePath && nearMiss(String(o.params.additionalProperty), [missing]) === missing);
+        if (!misspelt) push(path, `missing required key "${missing}"`);
         break;
+      }
       case "type":
         push(path, `expected ${typeWords(e.params.type)}; got ${describeValue(value)}`);
         break;

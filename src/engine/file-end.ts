@@ -139,7 +139,7 @@ export function createFileEnd(plan: Plan, out: Collector) {
             .map((a, i) => `${a.fn}(${a.arg?.source ?? ""})=${shownValue(formatValue(results[i] ?? null), a.arg?.columns.some((c) => plan.columns[c]?.sensitive === true) === true)}`)
             .join(", ");
           const count = g.rows[at] ?? 0;
-          const span = count === 1 ? `row ${firstRow}` : `${count} rows, ${firstRow} to ${g.lastRow[at]}`;
+          const span = count === 1 ? `row ${firstRow}` : `${count} rows, rows ${firstRow} to ${g.lastRow[at]}`;
           out.keep(g.plan.check, {
             rule: rule(g.plan.check), level: level(g.plan.check), row: firstRow, line: g.firstLine.at(at), column: names[0] ?? "",
             value: key, expected: g.plan.assert.source,

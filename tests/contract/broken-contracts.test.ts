@@ -118,6 +118,12 @@ const cases: readonly BrokenCase[] = [
     at: [[4, 3]],
   },
   {
+    // One misspelt key is one mistake: the unknown-key message names the key it should be.
+    name: "a misspelt required key: one message, at the misspelt key",
+    contract: head + "columns:\n  a: { type: text }\nrules:\n  - id: r\n    asert: a IS NOT NULL\n",
+    at: [[7, 5]],
+  },
+  {
     name: "bad expression, plain scalar: the second > of qty >> 3",
     contract: head + "columns:\n  qty: { type: integer }\nrules:\n  - id: r1\n    assert: qty >> 3\n",
     at: [[7, 18]],
