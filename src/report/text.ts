@@ -42,5 +42,7 @@ function delivery(r: DeliveryReport, colour: boolean | undefined): string {
 /** The report for people reading a terminal or a CI log: per delivery, failed checks by severity, with examples. */
 export const text: Writer = (reports, ctx: WriterContext) => {
   const unclaimed = (ctx.unclaimed ?? []).map((f) => oneLine(`${ctx.unclaimedFails ? "ERROR  " : "NOTE   "} ${f}: no contract in tablegate.yaml claims this file; it was not checked`));
-  return [...reports.map((r) => delivery(r, ctx.colour)), ...(unclaimed.length ? [unclaimed.join("\n")] : [])].join("\n\n") + "\n";
+  const parts = [...reports.map((r) => delivery(r, ctx.colour)), ...(unclaimed.length ? [unclaimed.join("\n")] : [])];
+  // A run can have nothing to check (--changed-since with no changed delivery): say so, not a blank line.
+  return parts.length === 0 ? "no delivery to check\n" : parts.join("\n\n") + "\n";
 };

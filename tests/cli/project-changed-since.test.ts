@@ -140,6 +140,13 @@ describe("--changed-since in a git repository", () => {
     expect(parsed(required).unclaimed).toEqual(["inbox/extra.tsv.gz"]);
   });
 
+  it("nothing changed: exit 0 and a line that says there was nothing to check", async () => {
+    const { dir, base: a } = await gitRepo(base);
+    await commit(dir, { "README.md": "# Deliveries, again\n" }, "docs only");
+    const o = await cli(dir, ["check", "--changed-since", a]);
+    expect({ code: o.code, out: o.stdout.trim() }).toEqual({ code: 0, out: "no delivery to check" });
+  });
+
   it("uncommitted edits count (staged or not)", async () => {
     const { dir, base: a } = await gitRepo(base);
     await put(dir, { "deliveries/sales/w02.csv": "sku,qty\nSTOVE-1,-4\n" });
