@@ -21,7 +21,8 @@ export function parseBound(spec: ColumnSpec, bound: number | string): Value | un
       if (typeof bound !== "string") return undefined;
       const text = bound.trim();
       const days = parseIsoDate(text);
-      return days === undefined ? parseIsoTimestamp(text) : timestampValue(days * MS_PER_DAY, false);
+      // A bare date bound is midnight UTC (README), shown as such: with Z.
+      return days === undefined ? parseIsoTimestamp(text) : timestampValue(days * MS_PER_DAY, true);
     }
     case "time": {
       const seconds = typeof bound === "string" ? parseIsoTime(bound.trim()) : undefined;

@@ -20,7 +20,8 @@ describe("parseBound", () => {
   });
   it("takes RFC 3339 timestamps or a bare date for timestamp columns", () => {
     expect(parseBound({ type: "timestamp" }, "2024-01-01T00:00:00Z")).toEqual(timestampValue(Date.UTC(2024, 0, 1), true));
-    expect(parseBound({ type: "timestamp" }, "2024-01-01")).toEqual(timestampValue(Date.UTC(2024, 0, 1), false));
+    // A bare date is that day's midnight UTC (README), so it is a zoned instant and reads back with Z.
+    expect(parseBound({ type: "timestamp" }, "2024-01-01")).toEqual(timestampValue(Date.UTC(2024, 0, 1), true));
     expect(parseBound({ type: "timestamp" }, "yesterday")).toBeUndefined();
   });
   it("takes hh:mm[:ss] for time columns", () => {
