@@ -11,6 +11,7 @@ import {
   readLock,
   revisionWithContent,
   tableAtRevision,
+  tableListedAtRevision,
   writeLock,
   type LockIssue,
   type RefTable,
@@ -202,6 +203,14 @@ const diff: Sub = async (positionals, values, ctx) => {
     if (!found.ok) return problems(ctx.io, found.problems);
     if (found.value === undefined) return problems(ctx.io, [{ file: LOCK_FILE, message: `the locked content of "${name}" is not in the git history of ${entry.file}; give --from <git-rev>` }]);
     rev = found.value;
+  }
+  // A table new since that revision: every row is added.
+  const listed = await tableListedAtRevision(ctx.root, rev, name, after.origin);
+  if (!listed.ok) return problems(ctx.io, listed.problems);
+  if (!listed.value) {
+    const d: TableDiff = { ...emptyDiff(after), versionBefore: "(none)", columnsAdded: [...after.columns], added: [...after.keys()] };
+    ctx.io.stdout(values.json ? JSON.stringify({ ...d, from: rev }, null, 2) + "\n" : renderDiff(d, rev));
+    return PASS;
   }
   const before = await tableAtRevision(ctx.root, rev, name, after.origin);
   if (!before.ok) return problems(ctx.io, before.problems);

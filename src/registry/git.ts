@@ -35,6 +35,22 @@ export async function readAtRevision(repoRoot: string, rev: string, path: string
   return r.ok ? ok(r.out) : fail({ file: `${rev}:${p}`, message: `cannot read at revision ${rev}: ${r.err}` });
 }
 
+/** Whether the registry at a git revision lists the table (false when it, or its manifest, was not there yet). */
+export async function tableListedAtRevision(repoRoot: string, rev: string, name: string, manifest: string = REPO_MANIFEST): Promise<Result<boolean>> {
+  if (!REV.test(rev)) return fail({ file: "(arguments)", message: `"${rev}" is not a git revision` });
+  const m = cleanRepoPath(manifest);
+  if (m === undefined) return fail({ file: manifest, message: "path lies outside the repository" });
+  const exists = await git(repoRoot, ["cat-file", "-e", `${rev}:./${m}`]);
+  if (!exists.ok) {
+    const revOk = await git(repoRoot, ["rev-parse", "--verify", "--quiet", `${rev}^{commit}`]);
+    return revOk.ok ? ok(false) : fail({ file: "(arguments)", message: `"${rev}" is not a git revision here` });
+  }
+  const text = await readAtRevision(repoRoot, rev, m);
+  if (!text.ok) return text;
+  const parsed = parseManifest(text.value.toString("utf8"), `${rev}:${m}`);
+  return parsed.ok ? ok(parsed.value.some((e) => e.name === name)) : parsed;
+}
+
 /**
  * A table as it was at a git revision: its manifest entry and CSV read from that revision and checked as
  * on load. `manifest` is the repository-relative registry.yaml the table is listed in.

@@ -21,4 +21,4 @@ export {
   type LockIssue,
 } from "./lock.js";
 export { diffTables, isEmptyDiff, type CellChange, type TableDiff } from "./diff.js";
-export { readAtRevision, revisionWithContent, tableAtRevision } from "./git.js";
+export { readAtRevision, revisionWithContent, tableAtRevision, tableListedAtRevision } from "./git.js";

@@ -98,4 +98,20 @@ describe("tablegate ref", () => {
     expect((await ref(root, "diff", "colors", "--from", "--evil")).code).toBe(2);
     expect((await ref(root, "frobnicate")).code).toBe(2);
   });
+
+  it("diff --from a revision before the table existed lists every row as added; a revision that is none is refused", async () => {
+    const root = await lockedRepo();
+    git(root, "commit", "-q", "--allow-empty", "-m", "later");
+    const home = git(root, "rev-parse", "--abbrev-ref", "HEAD").trim();
+    // The table exists at HEAD; build a branch where it never did.
+    git(root, "checkout", "-q", "--orphan", "empty");
+    git(root, "rm", "-rq", "--cached", ".");
+    git(root, "commit", "-q", "--allow-empty", "-m", "nothing yet");
+    const empty = git(root, "rev-parse", "HEAD").trim();
+    git(root, "checkout", "-q", "-f", home);
+    const r = await ref(root, "diff", "colors", "--from", empty, "--json");
+    expect(r.code).toBe(0);
+    expect((JSON.parse(r.out) as { added: string[] }).added).toEqual(["RED", "GRN", "BLU"]);
+    expect((await ref(root, "diff", "colors", "--from", "no-such-rev")).code).toBe(2);
+  });
 });
