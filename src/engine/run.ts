@@ -136,7 +136,10 @@ export async function runPlan(plan: Plan, batches: AsyncIterable<readonly RawRec
       const text = texts[i] as string;
       if (s === 1) {
         // A blank marker written with spaces (" NA ") still had spaces; a cell of spaces alone is just blank.
-        if (col.spacesCheck >= 0 && raw.length > 0 && raw.trim() !== raw && raw.trim() !== "") emitSpaces(col, raw, rowNo, line);
+        if (col.spacesCheck >= 0 && raw.length > 0) {
+          const trimmed = raw.trim();
+          if (trimmed !== raw && trimmed !== "") emitSpaces(col, raw, rowNo, line);
+        }
         if (col.required) emit(col.requiredCheck, rowNo, line, () => ({ column: col.name, value: cellValue(raw, col.sensitive), expected: "a value", message: `${col.name} is blank but required` }));
         continue;
       }

@@ -32,11 +32,11 @@ export interface MadScale {
    */
   score(x: number): number;
   /**
-   * True when |score(x)| > threshold, decided without dividing: 0.6745·|x − median| > threshold·MAD
+   * For one threshold, a test true when |score(x)| > threshold, decided without dividing: 0.6745·|x − median| > threshold·MAD
    * (or |x − median| > threshold·1.253314·MeanAD), in exact decimals when the column is decimal, so
    * a score equal to the threshold is not beyond it.
    */
-  beyond(x: number, threshold: number): boolean;
+  beyondFor(threshold: number): (x: number) => boolean;
 }
 
 /** Median, MAD and a modified z-score function for the values; undefined when there are none. */
@@ -54,24 +54,28 @@ export function madScores(values: Float64Array): MadScale | undefined {
   scratch.sort();
   const mad = atScale(medianSorted(scratch), sMad);
   const deviation = (x: number): number => atScale(Math.abs(x - median), sMedian);
-  /** a·b > c·d, each product at the scale its decimal factors give it. */
-  const exceeds = (a: number, b: number, c: number, d: number): boolean => {
+  /**
+   * x beyond the threshold when a·|x − median| > c·d, each product at the scale its decimal factors
+   * give it. The right side and a's scale are the same for every value, so they are worked out once.
+   */
+  const beyondWhen = (a: number, c: number, d: number): ((x: number) => boolean) => {
     const sa = scaleOf(a);
     const sc = scaleOf(c);
-    const left = sa < 0 || sMedian < 0 ? a * b : atScale(a * b, sa + sMedian);
-    const right = sc < 0 || scaleOf(d) < 0 ? c * d : atScale(c * d, sc + scaleOf(d));
-    return left > right;
+    const sd = scaleOf(d);
+    const right = sc < 0 || sd < 0 ? c * d : atScale(c * d, sc + sd);
+    const leftScale = sa < 0 || sMedian < 0 ? -1 : sa + sMedian;
+    return (x) => atScale(a * deviation(x), leftScale) > right;
   };
 
   if (mad > 0) {
     const factor = MAD_CONSTANT / mad;
-    return { median, mad, meanAd: meanDeviation(scratch, sMedian), basis: "mad", score: (x) => (x - median) * factor, beyond: (x, t) => exceeds(MAD_CONSTANT, deviation(x), t, mad) };
+    return { median, mad, meanAd: meanDeviation(scratch, sMedian), basis: "mad", score: (x) => (x - median) * factor, beyondFor: (t) => beyondWhen(MAD_CONSTANT, t, mad) };
   }
   const meanAd = meanDeviation(scratch, sMedian);
   if (meanAd > 0) {
     const divisor = MEAN_AD_CONSTANT * meanAd;
     const limit = (t: number) => atScale(t * MEAN_AD_CONSTANT, scaleOf(t) < 0 ? -1 : scaleOf(t) + 6);
-    return { median, mad, meanAd, basis: "mean-ad", score: (x) => (x - median) / divisor, beyond: (x, t) => exceeds(1, deviation(x), limit(t), meanAd) };
+    return { median, mad, meanAd, basis: "mean-ad", score: (x) => (x - median) / divisor, beyondFor: (t) => beyondWhen(1, limit(t), meanAd) };
   }
   return {
     median,
@@ -79,7 +83,7 @@ export function madScores(values: Float64Array): MadScale | undefined {
     meanAd,
     basis: "constant",
     score: (x) => (x === median ? 0 : x > median ? Infinity : -Infinity),
-    beyond: (x) => x !== median,
+    beyondFor: () => (x) => x !== median,
   };
 }
 

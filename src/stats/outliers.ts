@@ -84,9 +84,10 @@ export function findOutliers(column: FloatColumnView, spec: OutlierMethod): Outl
       ? { method: "mad", n, threshold, median: scale.median, mad: scale.mad, meanAd: scale.meanAd, basis: scale.basis }
       : { method: "mad", n, threshold };
     if (scale) {
+      const beyond = scale.beyondFor(threshold);
       for (let i = 0; i < n; i++) {
         const value = values[i] as number;
-        if (!scale.beyond(value, threshold)) continue;
+        if (!beyond(value)) continue;
         const score = scale.score(value);
         count++;
         if (outliers.length < keep) outliers.push({ row: rows[i] as number, value, score });

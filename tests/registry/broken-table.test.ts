@@ -2,11 +2,10 @@
  * A project table that does not load blocks only what uses it (README, Lock): a contract that never
  * names it is still checked; one that names it is refused at its own line, naming the table's problem.
  */
-import { mkdir, mkdtemp, writeFile } from "node:fs/promises";
-import { tmpdir } from "node:os";
-import { dirname, join } from "node:path";
+import { writeFile } from "node:fs/promises";
+import { join } from "node:path";
 import { describe, expect, it } from "vitest";
-import { run } from "../../src/cli/run.js";
+import { tablegate, tempRepo } from "./helpers.js";
 
 // Invented data: an outdoor-gear wholesaler's code lists.
 const GOOD = "code,name\nTENT,Tents\nPACK,Packs\n";
@@ -20,53 +19,37 @@ const FILES: Record<string, string> = {
   "kinds.csv": "kind\nTMP\n",
 };
 
-async function tg(cwd: string, ...argv: string[]): Promise<{ code: number; out: string; err: string }> {
-  let out = "";
-  let err = "";
-  const code = await run(argv, { stdout: (s) => (out += s), stderr: (s) => (err += s), env: { NO_COLOR: "1" }, cwd });
-  return { code, out, err };
-}
 
 describe("a table that does not load", () => {
   it("blocks the contracts and commands that use it, and nothing else", async () => {
-    const root = await mkdtemp(join(tmpdir(), "tablegate-broken-"));
-    await mkdir(join(root, ".git"));
-    for (const [path, text] of Object.entries(FILES)) {
-      await mkdir(dirname(join(root, path)), { recursive: true });
-      await writeFile(join(root, path), text);
-    }
-    expect((await tg(root, "ref", "lock")).code).toBe(0);
+    const root = await tempRepo(FILES);
+    expect((await tablegate(root, "ref", "lock")).code).toBe(0);
     // Line 3 repeats the key of line 2.
     await writeFile(join(root, "reference/kinds.csv"), "kind,unit\nTMP,c\nTMP,d\n");
 
-    const other = await tg(root, "check", "categories.csv", "--contract", "uses-categories.yaml");
+    const other = await tablegate(root, "check", "categories.csv", "--contract", "uses-categories.yaml");
     expect(other.code).toBe(0);
-    const user = await tg(root, "check", "kinds.csv", "--contract", "uses-kinds.yaml");
+    const user = await tablegate(root, "check", "kinds.csv", "--contract", "uses-kinds.yaml");
     const lines = user.err.trim().split("\n");
     expect({ code: user.code, lines: lines.length }).toEqual({ code: 2, lines: 1 });
     expect(lines[0]).toMatch(/^tablegate: uses-kinds\.yaml:6:\d+: .*kinds.*reference\/kinds\.csv:3/);
 
-    const list = await tg(root, "ref", "list");
+    const list = await tablegate(root, "ref", "list");
     expect({ code: list.code, listsGood: list.out.includes("gear-categories"), listsBroken: list.out.includes("kinds") }).toEqual({ code: 0, listsGood: true, listsBroken: false });
     expect(list.err).toContain('"kinds"');
-    expect((await tg(root, "ref", "show", "gear-categories")).code).toBe(0);
-    expect((await tg(root, "ref", "show", "kinds")).code).toBe(2);
-    expect((await tg(root, "ref", "lint")).code).toBe(1);
-    expect((await tg(root, "ref", "lock")).code).toBe(2);
+    expect((await tablegate(root, "ref", "show", "gear-categories")).code).toBe(0);
+    expect((await tablegate(root, "ref", "show", "kinds")).code).toBe(2);
+    expect((await tablegate(root, "ref", "lint")).code).toBe(1);
+    expect((await tablegate(root, "ref", "lock")).code).toBe(2);
   });
 
   it("lint refuses, as check does, a contract whose table left its lock", async () => {
-    const root = await mkdtemp(join(tmpdir(), "tablegate-lint-lock-"));
-    await mkdir(join(root, ".git"));
-    for (const [path, text] of Object.entries(FILES)) {
-      await mkdir(dirname(join(root, path)), { recursive: true });
-      await writeFile(join(root, path), text);
-    }
-    expect((await tg(root, "ref", "lock")).code).toBe(0);
-    expect((await tg(root, "lint", "uses-kinds.yaml")).code).toBe(0);
+    const root = await tempRepo(FILES);
+    expect((await tablegate(root, "ref", "lock")).code).toBe(0);
+    expect((await tablegate(root, "lint", "uses-kinds.yaml")).code).toBe(0);
     await writeFile(join(root, "reference/kinds.csv"), "kind,unit\nTMP,c\nHUM,p\nPRS,h\n");
-    expect((await tg(root, "lint", "uses-kinds.yaml")).code).toBe(2);
-    expect((await tg(root, "check", "kinds.csv", "--contract", "uses-kinds.yaml")).code).toBe(2);
-    expect((await tg(root, "lint", "uses-categories.yaml")).code).toBe(0);
+    expect((await tablegate(root, "lint", "uses-kinds.yaml")).code).toBe(2);
+    expect((await tablegate(root, "check", "kinds.csv", "--contract", "uses-kinds.yaml")).code).toBe(2);
+    expect((await tablegate(root, "lint", "uses-categories.yaml")).code).toBe(0);
   });
 });

@@ -3,12 +3,9 @@
  * date minus date is a number of days, and a table's `columns:` declares which cells are dates,
  * integers, decimals or booleans.
  */
-import { mkdir, mkdtemp, writeFile } from "node:fs/promises";
-import { tmpdir } from "node:os";
-import { dirname, join } from "node:path";
 import { describe, expect, it } from "vitest";
-import { run } from "../../src/cli/run.js";
 import type { DeliveryReport } from "../../src/report/model.js";
+import { tablegate, tempRepo } from "./helpers.js";
 
 // Invented data: an outdoor-gear wholesaler's product categories.
 const FILES: Record<string, string> = {
@@ -44,22 +41,12 @@ rules:
   "d.csv": "category,sold_on,lines,duty_paid,taxed\nTENT,2019-03-15,41,0.05,true\nTENT,2019-04-01,40,0.050,false\nGIFT,2023-12-01,6,0.1,false\n",
 };
 
-async function tg(cwd: string, ...argv: string[]): Promise<{ code: number; out: string }> {
-  let out = "";
-  const code = await run(argv, { stdout: (s) => (out += s), stderr: () => undefined, env: { NO_COLOR: "1" }, cwd });
-  return { code, out };
-}
 
 describe("lookup() of typed registry columns", () => {
   it("does date arithmetic, numbers and booleans on the looked-up cells", async () => {
-    const root = await mkdtemp(join(tmpdir(), "tablegate-lookup-"));
-    await mkdir(join(root, ".git"));
-    for (const [path, text] of Object.entries(FILES)) {
-      await mkdir(dirname(join(root, path)), { recursive: true });
-      await writeFile(join(root, path), text);
-    }
-    expect((await tg(root, "ref", "lock")).code).toBe(0);
-    const r = await tg(root, "check", "d.csv", "--contract", "c.yaml", "--report", "json=-");
+    const root = await tempRepo(FILES);
+    expect((await tablegate(root, "ref", "lock")).code).toBe(0);
+    const r = await tablegate(root, "check", "d.csv", "--contract", "c.yaml", "--report", "json=-");
     const report = JSON.parse(r.out) as DeliveryReport;
     const rows = (rule: string) => report.findings.filter((f) => f.rule === rule).map((f) => f.row);
     expect({
