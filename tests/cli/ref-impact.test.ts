@@ -1,9 +1,9 @@
 import { execFileSync } from "node:child_process";
-import { mkdir, mkdtemp, writeFile } from "node:fs/promises";
-import { tmpdir } from "node:os";
+import { mkdir, writeFile } from "node:fs/promises";
 import { dirname, join } from "node:path";
 import { describe, expect, it } from "vitest";
 import { run } from "../../src/cli/run.js";
+import { tempDir } from "../helpers/temp-dir.js";
 
 interface Ran {
   readonly code: number;
@@ -62,7 +62,7 @@ const W48 = "order_no,category,state,sales_region\nA-1,TENT,WA,PACIFIC\nA-2,PACK
 const W47 = "order_no,category,state,sales_region\nA-1,TENT,WA,PACIFIC\nA-2,PACK,OR,PACIFIC\n";
 
 async function project(): Promise<string> {
-  const root = await mkdtemp(join(tmpdir(), "tg-impact-"));
+  const root = tempDir("tg-impact-");
   await put(root, {
     "tablegate.yaml": "tablegate: 1\ndeliveries:\n  - files: data/orders-*.csv\n    contract: contracts/dealer-orders.contract.yaml\n",
     "reference/registry.yaml": REGISTRY,
@@ -224,7 +224,7 @@ describe("tablegate ref impact", () => {
 
 describe("tablegate ref impact without tablegate.yaml", () => {
   it("checks --data files against the one contract that reads the table", async () => {
-    const root = await mkdtemp(join(tmpdir(), "tg-impact-solo-"));
+    const root = tempDir("tg-impact-solo-");
     const files: Record<string, string> = {
       "reference/registry.yaml": "tables:\n  gear-categories:\n    file: gear-categories.csv\n    key: code\n    version: \"1\"\n",
       "reference/gear-categories.csv": "code\nTENT\nSTOVE\n",

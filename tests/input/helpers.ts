@@ -1,13 +1,13 @@
-import { mkdtempSync, writeFileSync } from "node:fs";
-import { tmpdir } from "node:os";
+import { writeFileSync } from "node:fs";
 import { join } from "node:path";
 import { createCsvParser, readCsv } from "../../src/input/csv.js";
 import { createDecoder } from "../../src/input/decode.js";
 import { openDelivery } from "../../src/input/index.js";
 import { readNdjson } from "../../src/input/ndjson.js";
+import { tempDir } from "../helpers/temp-dir.js";
 import type { DeliverySummary, InputOptions, RawRecord, StructureBreak } from "../../src/input/index.js";
 
-const dir = mkdtempSync(join(tmpdir(), "tablegate-input-"));
+const dir = tempDir("tablegate-input-");
 let serial = 0;
 
 /** Writes bytes to a fresh temporary file with the given suffix and returns its path. */

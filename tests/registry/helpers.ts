@@ -1,11 +1,11 @@
-import { mkdtemp, mkdir, writeFile } from "node:fs/promises";
-import { tmpdir } from "node:os";
+import { mkdir, writeFile } from "node:fs/promises";
 import { dirname, join } from "node:path";
 import { run } from "../../src/cli/run.js";
+import { tempDir } from "../helpers/temp-dir.js";
 
 /** A fresh temporary folder with the given files (paths relative to it). */
 export async function tempRepo(files: Record<string, string | Uint8Array>): Promise<string> {
-  const root = await mkdtemp(join(tmpdir(), "tg-registry-"));
+  const root = tempDir("tg-registry-");
   for (const [path, text] of Object.entries(files)) {
     await mkdir(dirname(join(root, path)), { recursive: true });
     await writeFile(join(root, path), text);
