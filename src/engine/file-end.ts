@@ -73,9 +73,10 @@ export function createFileEnd(plan: Plan, out: Collector) {
     }
     return g.by.length === 1 ? (parts[0] as string) : joinParts(parts);
   };
-  // What a group shows: its first row's trimmed texts (masked only when reported).
-  const shownKey = (g: GroupPlan, texts: readonly string[]): string =>
-    g.by.length === 1 ? (texts[g.by[0] as number] as string) : joinParts(g.by.map((c) => texts[c] as string));
+  // What a group shows: its first row's trimmed texts (masked only when reported); "" for a NULL part.
+  const shownPart = (c: number, texts: readonly string[], states: CellStates): string => (states[c] === 0 ? (texts[c] as string) : "");
+  const shownKey = (g: GroupPlan, texts: readonly string[], states: CellStates): string =>
+    g.by.length === 1 ? shownPart(g.by[0] as number, texts, states) : joinParts(g.by.map((c) => shownPart(c, texts, states)));
 
   return {
     /** A record not checked (wrong width): only its line is remembered. */
@@ -101,7 +102,7 @@ export function createFileEnd(plan: Plan, out: Collector) {
           if (known !== 0) at = known - 1;
           else {
             at = g.keys.length;
-            g.keys.push(shownKey(g.plan, texts));
+            g.keys.push(shownKey(g.plan, texts, states));
             g.firstRow.push(rowNo);
             g.firstLine.push(line);
             if (at >= g.rows.length) {
@@ -132,11 +133,15 @@ export function createFileEnd(plan: Plan, out: Collector) {
           const results = g.table.results(at);
           const texts = g.plan.by.length === 1 ? [g.keys[at] ?? ""] : splitParts(g.keys[at] ?? "");
           const key = names
-            .map((nm, i) => `${nm}=${texts[i] === "" ? "(blank)" : shownValue(texts[i] ?? "", plan.columns[g.plan.by[i] ?? 0]?.sensitive === true)}`)
+            .map((nm, i) => `${nm}=${texts[i] === "" ? "NULL" : shownValue(texts[i] ?? "", plan.columns[g.plan.by[i] ?? 0]?.sensitive === true)}`)
             .join(", ");
           // An aggregate over a sensitive column (its first, min, max, even a one-row sum) is that column's value.
           const shown = g.plan.assert.aggregates
-            .map((a, i) => `${a.fn}(${a.arg?.source ?? ""})=${shownValue(formatValue(results[i] ?? null), a.arg?.columns.some((c) => plan.columns[c]?.sensitive === true) === true)}`)
+            .map((a, i) => {
+              const v = results[i] ?? null;
+              const sensitive = a.arg?.columns.some((c) => plan.columns[c]?.sensitive === true) === true;
+              return `${a.fn}(${a.arg?.source ?? ""})=${v === null ? "NULL" : shownValue(formatValue(v), sensitive)}`;
+            })
             .join(", ");
           const count = g.rows[at] ?? 0;
           const span = count === 1 ? `row ${firstRow}` : `${count} rows, rows ${firstRow} to ${g.lastRow[at]}`;

@@ -18,11 +18,11 @@ export function keyText(v: Value, text: string): string {
 
 /**
  * One part of a key or group key from a cell in its state (0 parsed, 1 blank, 2 not of its type,
- * 3 absent): a parsed value as keyText gives it, a cell of the wrong type as its text marked with a
- * leading NUL (so it never equals a value's keyText, such as a date's `d19000`), a blank as "".
+ * 3 absent): a parsed value as keyText gives it, anything else "" — NULL, as a cell that fails its
+ * type is everywhere else (SQL GROUP BY puts NULLs in one group; a key with a NULL part is never compared).
  */
 export function keyPart(v: Value, text: string, state: number): string {
-  return state === 0 ? keyText(v, text) : state === 2 ? `\u0000${text}` : "";
+  return state === 0 ? keyText(v, text) : "";
 }
 
 /** Parts joined so that no two different lists join alike: each part preceded by its length. */

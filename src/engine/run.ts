@@ -172,12 +172,13 @@ export async function runPlan(plan: Plan, batches: AsyncIterable<readonly RawRec
       hasher.reset();
       let complete = true;
       for (const c of key.columns) {
-        if (state[c] !== 0 && state[c] !== 2) complete = false;
+        // A part that is blank or fails its type is NULL: as SQL UNIQUE, such a key never repeats.
+        if (state[c] !== 0) complete = false;
         hasher.add(keyPart(values[c] as Value, texts[c] as string, state[c] as number));
       }
       if (!complete) {
         if (k === 0) firstKey = -1;
-        continue; // SQL UNIQUE: a key with a blank part never equals another
+        continue;
       }
       const first = (keySets[k] as SeenSet).firstOrAdd(hasher.hi, hasher.lo, rowNo);
       if (k === 0) firstKey = first;

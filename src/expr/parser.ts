@@ -225,7 +225,7 @@ export function parse(source: string): { ok: true; node: Node } | SyntaxFailure 
       otherwise = parseOr();
       if (otherwise === null) return null;
     }
-    if (!isKw(peek(), "END")) return expected(`${otherwise === null ? "WHEN, ELSE or " : ""}END to close CASE at ${caseToken.start}`);
+    if (!isKw(peek(), "END")) return expected(`${otherwise === null ? "WHEN, ELSE or " : ""}END to close the CASE at character ${caseToken.start + 1} of the expression`);
     const end = next().end;
     return { type: "case", subject, branches, otherwise, start: caseToken.start, end };
   }

@@ -49,13 +49,15 @@ describe("group keys", () => {
     }
   });
 
-  it("a cell that fails its type groups apart from every value, blank cells together", async () => {
+  it("a cell that fails its type is NULL and groups with the blank cells, as SQL GROUP BY puts NULLs in one group", async () => {
     const contract = "tablegate: 1\nname: days\ncolumns:\n  day: { type: date }\n  n: { type: integer }\ngroups:\n  - id: one-per-day\n    by: [day]\n    assert: count() = 1\n    level: note\n";
     // 2026-01-01 is day 20454 after 1970-01-01 (Date.UTC(2026, 0, 1) / 86400000).
     expect(Date.UTC(2026, 0, 1) / 86_400_000).toBe(20454);
     const { report } = await checkJson(contract, "day,n\n2026-01-01,1\nd20454,2\n,3\n,4\n");
     const found = report.findings.filter((f) => f.rule === "group:one-per-day");
-    expect(found.map((f) => f.row)).toEqual([3]);
+    // Row 1 is a group alone; rows 2 (not a date), 3 and 4 (blank) are the one NULL group.
+    expect(found.map((f) => f.row)).toEqual([2]);
+    expect(found[0]?.message).toContain("day=NULL (3 rows, rows 2 to 4)");
   });
 });
 
