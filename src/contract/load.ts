@@ -9,7 +9,7 @@ import { compilePlan } from "./compile.js";
 import type { Plan } from "./plan.js";
 import { schemaProblems } from "./schema-errors.js";
 import type { ContractSpec } from "./types.js";
-import { parseYamlSource } from "./yaml-source.js";
+import { parseYamlSource, yamlData } from "./yaml-source.js";
 
 export interface LoadOptions {
   readonly registry: Registry;
@@ -23,7 +23,9 @@ export interface LoadOptions {
 export function compileContract(file: string, text: string, options: LoadOptions): Result<Plan> {
   const src = parseYamlSource(file, text);
   if (src.syntaxProblems.length > 0) return { ok: false, problems: src.syntaxProblems };
-  const data: unknown = src.doc.toJS({ maxAliasCount: 100 });
+  const read = yamlData(src);
+  if (!read.ok) return read;
+  const data = read.value;
   const validator = schemaValidator("contract");
   if (!validator.valid(data)) return { ok: false, problems: schemaProblems(src, data, validator.errors(data)) };
   const sha256 = createHash("sha256").update(text).digest("hex");

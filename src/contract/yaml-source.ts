@@ -1,5 +1,6 @@
-import { isMap, isPair, isScalar, isSeq, LineCounter, parseDocument, type Document, type Node } from "yaml";
-import type { Problem } from "../problem.js";
+import { isMap, isPair, isScalar, isSeq, LineCounter, parseDocument, visit, type Alias, type Document, type Node } from "yaml";
+import type { Problem, Result } from "../problem.js";
+import { explainSyntaxError } from "./yaml-syntax.js";
 
 /** A parsed YAML file that can turn paths and offsets into 1-based line and column. */
 export interface YamlSource {
@@ -13,21 +14,46 @@ export interface YamlSource {
 
 export type YamlPath = readonly (string | number)[];
 
-/** Parse YAML text keeping source ranges; never throws. */
+/** Parse YAML text keeping source ranges; never throws. Merge keys (`<<: *anchor`) are allowed. */
 export function parseYamlSource(file: string, text: string): YamlSource {
   const lines = new LineCounter();
-  const doc = parseDocument(text, { lineCounter: lines, prettyErrors: false, uniqueKeys: true });
-  const syntaxProblems = doc.errors.map((e): Problem => {
-    const pos = lines.linePos(e.pos[0]);
-    // The library's advice for a second document is for programmers; say what is wrong with the file.
-    const message = e.code === "MULTIPLE_DOCS" ? "a contract is one YAML document; this starts a second one (---)" : firstLine(e.message);
-    return { file, line: pos.line, column: pos.col, message };
-  });
+  const doc = parseDocument(text, { lineCounter: lines, prettyErrors: false, uniqueKeys: true, merge: true });
+  const first = doc.errors[0];
+  const syntaxProblems: Problem[] = [];
+  if (first !== undefined) {
+    const hint = explainSyntaxError(text, doc, lines, first);
+    const pos = lines.linePos(hint.offset);
+    syntaxProblems.push({ file, line: pos.line, column: pos.col, message: hint.message });
+  }
   return { file, text, doc, lines, syntaxProblems };
 }
 
-function firstLine(message: string): string {
-  return message.split("\n", 1)[0]?.replace(/ at line \d+, column \d+:?$/, "") ?? message;
+/** Aliases one file may expand: enough for shared column definitions, too few for a billion laughs. */
+const MAX_ALIAS_COUNT = 100;
+
+/**
+ * The data of a parsed YAML file without syntax errors. An alias to an anchor never set, or more alias
+ * expansions than MAX_ALIAS_COUNT, is a problem at the alias, never an exception.
+ */
+export function yamlData(src: YamlSource): Result<unknown> {
+  try {
+    return { ok: true, value: src.doc.toJS({ maxAliasCount: MAX_ALIAS_COUNT }) };
+  } catch (e) {
+    let alias: Alias | undefined;
+    let unresolved: Alias | undefined;
+    visit(src.doc, {
+      Alias(_, node) {
+        alias ??= node;
+        if (unresolved === undefined && node.resolve(src.doc) === undefined) unresolved = node;
+      },
+    });
+    const at = unresolved ?? alias;
+    const pos = at?.range ? positionOf(src, at.range[0]) : { line: 1, column: 1 };
+    const message = unresolved
+      ? `*${unresolved.source} refers to no anchor &${unresolved.source} set before it`
+      : `more than ${MAX_ALIAS_COUNT} alias expansions (*name); write the values out${e instanceof Error && !/alias/i.test(e.message) ? ` (${e.message})` : ""}`;
+    return { ok: false, problems: [{ file: src.file, ...pos, message }] };
+  }
 }
 
 /** The deepest node along `path` that exists, and whether the whole path was found. */

@@ -1,7 +1,7 @@
 import { readFile } from "node:fs/promises";
 import { join } from "node:path";
 import { schemaProblems } from "../contract/schema-errors.js";
-import { problemAt, parseYamlSource } from "../contract/yaml-source.js";
+import { problemAt, parseYamlSource, yamlData } from "../contract/yaml-source.js";
 import type { Problem, Result } from "../problem.js";
 import { schemaValidator } from "../schema/validator.js";
 import { globToRegExp } from "./glob.js";
@@ -32,7 +32,9 @@ export async function loadProjectConfig(root: string): Promise<Result<ProjectCon
   }
   const src = parseYamlSource(PROJECT_FILE, text);
   if (src.syntaxProblems.length > 0) return { ok: false, problems: src.syntaxProblems };
-  const data = src.doc.toJS({ maxAliasCount: 100 }) as {
+  const read = yamlData(src);
+  if (!read.ok) return read;
+  const data = read.value as {
     registries?: string[];
     deliveries?: { files: string | string[]; contract: string }[];
   };

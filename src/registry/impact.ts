@@ -2,7 +2,7 @@ import { readFile } from "node:fs/promises";
 import { checkFile } from "../check.js";
 import { compileContract } from "../contract/load.js";
 import type { Plan } from "../contract/plan.js";
-import { parseYamlSource, problemAt, type YamlPath, type YamlSource } from "../contract/yaml-source.js";
+import { parseYamlSource, problemAt, yamlData, type YamlPath, type YamlSource } from "../contract/yaml-source.js";
 import type { Node } from "../expr/ast.js";
 import { parse } from "../expr/parser.js";
 import { fail, ok, type Problem, type Result } from "../problem.js";
@@ -150,7 +150,8 @@ function isRecord(v: unknown): v is Record<string, unknown> {
 
 /** Where each check of a contract reads `table`, from the contract's YAML (before compiling). */
 export function tableReaders(src: YamlSource, table: string): TableReader[] {
-  const data: unknown = src.doc.toJS({ maxAliasCount: 100 });
+  const read = yamlData(src);
+  const data = read.ok ? read.value : undefined;
   if (!isRecord(data)) return [];
   const out: TableReader[] = [];
   const at = (path: YamlPath, offset?: number): { line: number; col: number } => {

@@ -2,7 +2,7 @@ import type { ErrorObject } from "ajv";
 import { schemaValidator } from "../schema/validator.js";
 import { isScalar } from "yaml";
 import { pointerPath } from "../contract/schema-errors.js";
-import { parseYamlSource, problemAt, type YamlPath, type YamlSource } from "../contract/yaml-source.js";
+import { parseYamlSource, problemAt, yamlData, type YamlPath, type YamlSource } from "../contract/yaml-source.js";
 import { fail, ok, type Problem, type Result } from "../problem.js";
 
 /** Types a registry column may declare; cells are checked against them when the table loads. */
@@ -56,8 +56,9 @@ function problemAtPath(src: YamlSource, path: YamlPath, message: string, onKey =
 export function parseManifest(text: string, file: string): Result<ManifestTable[]> {
   const src = parseYamlSource(file, text);
   if (src.syntaxProblems.length > 0) return fail(...src.syntaxProblems);
-  const doc = src.doc;
-  const data: unknown = doc.toJS({ maxAliasCount: 100 });
+  const read = yamlData(src);
+  if (!read.ok) return read;
+  const data = read.value;
   const validator = schemaValidator("registry");
   if (!validator.valid(data)) {
     const problems: Problem[] = [];
@@ -87,7 +88,7 @@ export function parseManifest(text: string, file: string): Result<ManifestTable[
     return { line: p.line ?? 1, column: p.column ?? 1 };
   };
   for (const [name, t] of Object.entries(tables)) {
-    const versionNode = doc.getIn(["tables", name, "version"], true);
+    const versionNode = src.doc.getIn(["tables", name, "version"], true);
     // A YAML number such as 2026.10 would read back as 2026.1: keep the text as written.
     const version = isScalar(versionNode) && typeof versionNode.value === "number" && versionNode.range
       ? text.slice(versionNode.range[0], versionNode.range[1])

@@ -170,11 +170,63 @@ const cases: readonly BrokenCase[] = [
     at: [[6, 9]],
   },
   {
-    // The yaml package (eemeli/yaml) reports a missing closing quote where it noticed it, at the end
-    // of the input (error.linePos of MISSING_CHAR), not where the quote opened.
-    name: "YAML syntax error: unclosed double quote",
+    // The yaml package notices a missing closing quote at the end of the input; the mistake is where it opened.
+    name: "YAML syntax error: unclosed double quote (points at the quote that opened)",
     contract: 'tablegate: 1\nname: "broken\ncolumns:\n  a: { type: text }\n',
-    at: [[5, 1]],
+    at: [[2, 7]],
+  },
+  {
+    // One slip, one message: later errors the library finds follow from the first.
+    name: "YAML: the first item of a mapping indented one space short (points at it, not at the items after)",
+    contract: head + "columns:\n a: { type: text }\n  b: { type: text }\n  c: { type: text }\n",
+    at: [[4, 2]],
+  },
+  {
+    name: "YAML: one item indented less than the one before it",
+    contract: head + "columns:\n    a: { type: text }\n    b: { type: text }\n   c: { type: text }\n",
+    at: [[6, 4]],
+  },
+  {
+    name: "YAML: a line indented deeper than its neighbours (points at that line)",
+    contract: head + "input:\n  format: csv\n   encoding: utf-8\ncolumns:\n  a: { type: text }\n",
+    at: [[5, 4]],
+  },
+  {
+    name: "YAML: a tab as indentation",
+    contract: head + "columns:\n\ta: { type: text }\n",
+    at: [[4, 1]],
+  },
+  {
+    name: "YAML: no space after a key's colon",
+    contract: "tablegate: 1\nname:broken\ncolumns:\n  a: { type: text }\n",
+    at: [[2, 1]],
+  },
+  {
+    name: "YAML: a flow map without its closing brace (points at the brace that opened)",
+    contract: head + "columns:\n  a: { type: text\n  b: { type: text }\n",
+    at: [[4, 6]],
+  },
+  {
+    name: "YAML: a flow list without its closing bracket",
+    contract: head + "columns:\n  a: { type: text, codes: [X, Y }\n  b: { type: text }\n",
+    at: [[4, 27]],
+  },
+  {
+    // SPEC §1.3 quotes names with double quotes; the whole YAML value then needs the other quotes.
+    name: "YAML: text after a quoted value's closing quote",
+    contract: head + 'columns:\n  a: { type: text }\nrules:\n  - id: r\n    assert: "a" <= "b"\n',
+    at: [[7, 17]],
+  },
+  {
+    name: "YAML: an alias to an anchor never set",
+    contract: head + "columns:\n  a: *nope\n",
+    at: [[4, 6]],
+  },
+  {
+    // Each alias of x2 expands ten of x1, each of those ten of x0: far past 100 expansions.
+    name: "YAML: more alias expansions than a contract needs (points at the first alias)",
+    contract: head + "x0: &a [1,1,1,1,1,1,1,1,1,1]\nx1: &b [*a,*a,*a,*a,*a,*a,*a,*a,*a,*a]\nx2: &c [*b,*b,*b,*b,*b,*b,*b,*b,*b,*b]\ncolumns:\n  a: { type: text }\n",
+    at: [[4, 9]],
   },
   {
     name: "YAML: the same column declared twice",
@@ -261,6 +313,15 @@ describe("broken contracts", () => {
   it("lint of a sound contract exits 0 and says nothing on stderr", async () => {
     const r = await runCli(["lint", "contract.yaml"], { "contract.yaml": head + "columns:\n  a: { type: text }\n" });
     expect({ code: r.code, stderr: r.stderr }).toEqual({ code: 0, stderr: "" });
+  });
+
+  it("YAML merge keys (<<: *anchor) share column options", async () => {
+    const r = await runCli(["check", "data.csv", "--contract", "contract.yaml", "--report", "json=-"], {
+      "contract.yaml": head + "columns:\n  a: &code { type: text, max_length: 2 }\n  b: { <<: *code, required: true }\n",
+      "data.csv": "a,b\nAB,\nABC,XYZ\n",
+    });
+    const report = JSON.parse(r.stdout) as { findings: { rule: string; row: number }[] };
+    expect(report.findings.map((f) => `${f.rule}@${f.row}`)).toEqual(["b.required@1", "a.max_length@2", "b.max_length@2"]);
   });
 
   it("lint reports each broken contract of several, naming each file", async () => {
