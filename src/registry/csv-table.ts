@@ -62,6 +62,8 @@ function readRecords(bytes: Uint8Array, file: string): Result<ParsedRecord[]> {
   try {
     raw = parse(text, {
       info: true, bom: true, relax_column_count: true, skip_empty_lines: true,
+      // Every line break ends a record, as in deliveries: a table edited on two systems mixes them.
+      record_delimiter: ["\r\n", "\n", "\r"],
       on_record: (record: string[], context: { lines: number; empty_lines: number }) => {
         lastEnd = context.lines;
         lastEmpty = context.empty_lines;

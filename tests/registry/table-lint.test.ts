@@ -22,3 +22,11 @@ describe("table checks on load", () => {
     expect(found[0]?.message).toContain("spaces");
   });
 });
+
+describe("line breaks in a table", () => {
+  // RFC 4180 §2 rule 1 ends records with CRLF; a table edited on two systems also has bare LF and CR
+  // lines, which end records as they do in deliveries (README "Reading deliveries").
+  it("CRLF, LF and CR lines mixed are read as one record each, problems on the right line", () => {
+    expect(problems("code,name,rank\r\nRED,Red,1\nGRN,Green,2\rBLU ,Blue,3\r\n")).toEqual([{ line: 4, message: expect.stringContaining("spaces") }]);
+  });
+});
