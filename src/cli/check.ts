@@ -10,7 +10,7 @@ import { changedSince, DATA_FILE, routedFiles } from "../project/files.js";
 import type { DeliveryReport, Level } from "../report/model.js";
 import { loadRegistry, verifyLock, type Registry } from "../registry/index.js";
 import { EXIT, type Io } from "./io.js";
-import { badArgument, unusable } from "./problems.js";
+import { badArgument, showUsage, unusable } from "./problems.js";
 import { createProgress } from "./progress.js";
 import { parseReportTargets, writeReports } from "./reports.js";
 import { findRoot, reportPath } from "./root.js";
@@ -26,6 +26,7 @@ const OPTIONS = {
   "changed-since": { type: "string" },
   "require-contract": { type: "boolean" },
   "parse-thread": { type: "string" },
+  help: { type: "boolean", short: "h" },
 } as const;
 
 interface Job {
@@ -43,27 +44,32 @@ export async function check(argv: readonly string[], io: Io): Promise<number> {
   try {
     parsed = parseArgs({ args: [...argv], allowPositionals: true, options: OPTIONS });
   } catch (e) {
-    return badArgument(io, `${(e as Error).message}\nusage: ${CHECK_USAGE}`);
+    return badArgument(io, "check", (e as Error).message);
   }
   const { values, positionals } = parsed;
+  if (values.help === true) return showUsage(io, CHECK_USAGE);
   const maxFindings = values["max-findings"] === undefined ? 1000 : Number(values["max-findings"]);
-  if (!/^\d+$/.test(values["max-findings"] ?? "0")) return badArgument(io, `invalid option --max-findings: expected a whole number, got ${JSON.stringify(values["max-findings"])}`);
+  if (!/^\d+$/.test(values["max-findings"] ?? "0")) return badArgument(io, "check", `invalid option --max-findings: expected a whole number, got ${JSON.stringify(values["max-findings"])}`);
   const failOn = values["fail-on"] ?? "error";
-  if (failOn !== "error" && failOn !== "warning") return badArgument(io, `invalid option --fail-on: expected error or warning, got ${JSON.stringify(failOn)}`);
+  if (failOn !== "error" && failOn !== "warning") return badArgument(io, "check", `invalid option --fail-on: expected error or warning, got ${JSON.stringify(failOn)}`);
   const parseThread = values["parse-thread"] ?? "auto";
-  if (parseThread !== "auto" && parseThread !== "on" && parseThread !== "off") return badArgument(io, `invalid option --parse-thread: expected auto, on or off, got ${JSON.stringify(parseThread)}`);
+  if (parseThread !== "auto" && parseThread !== "on" && parseThread !== "off") return badArgument(io, "check", `invalid option --parse-thread: expected auto, on or off, got ${JSON.stringify(parseThread)}`);
   const targets = parseReportTargets(values.report ?? []);
-  if (!targets.ok) return badArgument(io, targets.message);
+  if (!targets.ok) return badArgument(io, "check", targets.message);
 
   const root = findRoot(io.cwd);
   const config = await loadProjectConfig(root);
   if (!config.ok) return unusable(io, config.problems);
   const rel = (p: string) => reportPath(root, isAbsolute(p) ? p : join(io.cwd, p));
   const planned = await planJobs(root, config.value, positionals.map(rel), values.contract === undefined ? undefined : rel(values.contract), values["changed-since"]);
-  if (!planned.ok) return unusable(io, planned.problems);
+  if (!planned.ok) {
+    // Problems filed under "check" are about the arguments (no contract, no files): point at --help.
+    const [first] = planned.problems;
+    return planned.problems.length === 1 && first?.file === "check" ? badArgument(io, "check", first.message) : unusable(io, planned.problems);
+  }
   const { jobs, unclaimed } = planned.value;
   if (jobs.length === 0 && unclaimed.length === 0 && values["changed-since"] === undefined) {
-    return badArgument(io, `nothing to check: name delivery files, or list deliveries in tablegate.yaml\nusage: ${CHECK_USAGE}`);
+    return badArgument(io, "check", "nothing to check: name delivery files, or list deliveries in tablegate.yaml");
   }
 
   const registry = await loadRegistry(root, config.value.registries);

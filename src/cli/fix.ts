@@ -7,7 +7,7 @@ import { contractFor, loadProjectConfig } from "../project/config.js";
 import { loadRegistry } from "../registry/index.js";
 import { loadPlan } from "./check.js";
 import { EXIT, type Io } from "./io.js";
-import { badArgument, unusable } from "./problems.js";
+import { badArgument, showUsage, unusable } from "./problems.js";
 import { findRoot, reportPath } from "./root.js";
 
 export const FIX_USAGE = "tablegate fix <file> --contract <c> --out <clean> --rejects <rejects> --log <changes.ndjson>";
@@ -17,6 +17,7 @@ const OPTIONS = {
   out: { type: "string" },
   rejects: { type: "string" },
   log: { type: "string" },
+  help: { type: "boolean", short: "h" },
 } as const;
 
 /**
@@ -29,12 +30,13 @@ export async function fix(argv: readonly string[], io: Io): Promise<number> {
   try {
     parsed = parseArgs({ args: [...argv], allowPositionals: true, options: OPTIONS });
   } catch (e) {
-    return badArgument(io, `${(e as Error).message}\nusage: ${FIX_USAGE}`);
+    return badArgument(io, "fix", (e as Error).message);
   }
   const { values, positionals } = parsed;
-  if (positionals.length !== 1) return badArgument(io, `fix takes exactly one delivery file, got ${positionals.length}\nusage: ${FIX_USAGE}`);
+  if (values.help === true) return showUsage(io, FIX_USAGE);
+  if (positionals.length !== 1) return badArgument(io, "fix", `fix takes exactly one delivery file, got ${positionals.length}`);
   for (const key of ["out", "rejects", "log"] as const) {
-    if (values[key] === undefined || values[key] === "") return badArgument(io, `missing option --${key}\nusage: ${FIX_USAGE}`);
+    if (values[key] === undefined || values[key] === "") return badArgument(io, "fix", `missing option --${key}`);
   }
   const abs = (p: string) => (isAbsolute(p) ? p : join(io.cwd, p));
   const input = abs(positionals[0] as string);
@@ -49,7 +51,7 @@ export async function fix(argv: readonly string[], io: Io): Promise<number> {
   const inputLabel = reportPath(root, input);
   const contract = values.contract === undefined ? contractFor(config.value, inputLabel) : reportPath(root, abs(values.contract));
   if (contract === undefined) {
-    return badArgument(io, `no --contract given and no tablegate.yaml entry claims ${inputLabel}\nusage: ${FIX_USAGE}`);
+    return badArgument(io, "fix", `no --contract given and no tablegate.yaml entry claims ${inputLabel}`);
   }
   const registry = await loadRegistry(root, config.value.registries);
   if (!registry.ok) return unusable(io, registry.problems);

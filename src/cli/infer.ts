@@ -5,12 +5,12 @@ import { formatFromName, inferContract, nameFromFile } from "../infer/index.js";
 import type { Registry } from "../registry/index.js";
 import { schemaPath } from "../schema/locate.js";
 import { EXIT, type Io } from "./io.js";
-import { badArgument, unusable } from "./problems.js";
+import { badArgument, showUsage, unusable } from "./problems.js";
 import { findRoot, reportPath } from "./root.js";
 
 export const INFER_USAGE = "tablegate infer <file> [--name <n>]";
 
-const OPTIONS = { name: { type: "string", short: "n" } } as const;
+const OPTIONS = { name: { type: "string", short: "n" }, help: { type: "boolean", short: "h" } } as const;
 
 // A draft names no registry table, so it compiles against none.
 const NO_TABLES: Registry = { table: () => undefined, tables: () => [] };
@@ -24,15 +24,16 @@ export async function infer(argv: readonly string[], io: Io): Promise<number> {
   try {
     parsed = parseArgs({ args: [...argv], allowPositionals: true, options: OPTIONS });
   } catch (e) {
-    return badArgument(io, `${(e as Error).message}\nusage: ${INFER_USAGE}`);
+    return badArgument(io, "infer", (e as Error).message);
   }
   const { values, positionals } = parsed;
-  if (positionals.length !== 1) return badArgument(io, `infer takes one delivery file, got ${positionals.length}\nusage: ${INFER_USAGE}`);
+  if (values.help === true) return showUsage(io, INFER_USAGE);
+  if (positionals.length !== 1) return badArgument(io, "infer", `infer takes one delivery file, got ${positionals.length}`);
   const file = positionals[0] as string;
   const format = formatFromName(file);
-  if (format === undefined) return badArgument(io, `${file}: cannot tell the format from the name: expected .csv, .tsv, .ndjson or .jsonl, optionally .gz`);
+  if (format === undefined) return badArgument(io, "infer", `${file}: cannot tell the format from the name: expected .csv, .tsv, .ndjson or .jsonl, optionally .gz`);
   const name = values.name ?? nameFromFile(file);
-  if (!/^[a-z0-9][a-z0-9-]*$/.test(name)) return badArgument(io, `invalid option --name: expected lower-case letters, digits and dashes, got ${JSON.stringify(name)}`);
+  if (!/^[a-z0-9][a-z0-9-]*$/.test(name)) return badArgument(io, "infer", `invalid option --name: expected lower-case letters, digits and dashes, got ${JSON.stringify(name)}`);
 
   const root = findRoot(io.cwd);
   const path = isAbsolute(file) ? file : join(io.cwd, file);

@@ -9,12 +9,22 @@ export function unusable(io: Io, problems: readonly Problem[]): number {
 
 /**
  * One argument problem on one line (Node's own argument messages span several; they are joined),
- * optionally followed by a `usage:` line.
+ * ending with where the usage is: `tablegate <command> --help`.
  */
-export function badArgument(io: Io, message: string): number {
-  const [problem = "", usage] = message.split("\nusage: ");
-  io.stderr(`tablegate: ${plainer(problem.replace(/\s*\n\s*/g, " "))}\n${usage === undefined ? "" : `usage: ${usage}\n`}`);
+export function badArgument(io: Pick<Io, "stderr">, command: string, message: string): number {
+  io.stderr(`tablegate: ${plainer(message.replace(/\s*\n\s*/g, " "))}; run ${helpCommand(command)} for usage\n`);
   return EXIT.unusable;
+}
+
+/** The command line that prints the usage of `command` ("" for the tool as a whole). */
+export function helpCommand(command: string): string {
+  return command === "" ? "tablegate --help" : `tablegate ${command} --help`;
+}
+
+/** Print a command's usage on stdout, as asked for with --help. */
+export function showUsage(io: Pick<Io, "stdout">, usage: string): number {
+  io.stdout(`usage: ${usage}\n`);
+  return EXIT.pass;
 }
 
 /** Node's argument parser, said shorter: a value that looks like an option, an option it does not know. */
@@ -23,5 +33,9 @@ function plainer(message: string): string {
   if (ambiguous) return `option ${ambiguous[1]} needs a value; what follows it looks like an option (write ${ambiguous[1]}=<value> to pass it anyway)`;
   const unknown = /^Unknown option '([^']+)'/.exec(message);
   if (unknown) return `unknown option ${unknown[1]}`;
+  const missing = /^Option '(?:-\w, )?(--[\w-]+) <value>' argument missing/.exec(message);
+  if (missing) return `option ${missing[1]} needs a value`;
+  const flag = /^Option '(--[\w-]+)' does not take an argument/.exec(message);
+  if (flag) return `option ${flag[1]} takes no value`;
   return message;
 }

@@ -22,6 +22,7 @@ import {
 import { loadProjectConfig, type ProjectConfig } from "../project/config.js";
 import { breaks, tableImpact, type ImpactReport, type RowChange } from "../registry/impact.js";
 import type { Io } from "./io.js";
+import { badArgument, showUsage } from "./problems.js";
 import { REPO_MANIFEST } from "../registry/index.js";
 import { oneLine } from "../report/one-line.js";
 import { registryLintReports } from "./ref-lint-report.js";
@@ -79,8 +80,7 @@ function problems(io: RefIo, list: readonly Problem[], status = UNUSABLE): numbe
 }
 
 function bad(io: RefIo, message: string): number {
-  io.stderr(`tablegate: ${message}\nusage: ${REF_USAGE}\n`);
-  return UNUSABLE;
+  return badArgument(io, "ref", message);
 }
 
 async function registryOr(ctx: Ctx): Promise<Registry | number> {
@@ -342,6 +342,7 @@ function renderImpact(r: ImpactReport): string {
 }
 
 const SUBS: Readonly<Record<string, Sub>> = { list, show, lint, lock, diff, impact };
+const TAKES_NO_TABLE: ReadonlySet<string> = new Set(["list", "lint", "lock"]);
 
 /**
  * `tablegate ref ...`: list, show, lint, lock and diff the registry. Returns the exit status: 0 done,
@@ -349,8 +350,9 @@ const SUBS: Readonly<Record<string, Sub>> = { list, show, lint, lock, diff, impa
  */
 export async function runRef(args: readonly string[], io: RefIo, options: RefOptions = {}): Promise<number> {
   const [subName, ...rest] = args;
+  if (subName === "--help" || subName === "-h" || subName === "help") return showUsage(io, REF_USAGE);
   const sub = subName === undefined ? undefined : Object.hasOwn(SUBS, subName) ? SUBS[subName] : undefined;
-  if (!sub) return bad(io, subName === undefined ? "ref needs a subcommand" : `unknown ref subcommand "${subName}"`);
+  if (!sub) return bad(io, `${subName === undefined ? "ref needs a subcommand" : `unknown ref subcommand "${subName}"`}; expected one of ${Object.keys(SUBS).join(", ")}`);
   let parsed;
   try {
     parsed = parseArgs({
@@ -365,11 +367,15 @@ export async function runRef(args: readonly string[], io: RefIo, options: RefOpt
         contract: { type: "string" },
         "max-findings": { type: "string" },
         report: { type: "string", multiple: true },
+        help: { type: "boolean", short: "h" },
       },
     });
   } catch (e) {
     return bad(io, (e as Error).message);
   }
+  if (parsed.values.help === true) return showUsage(io, REF_USAGE);
+  // list, lint and lock name no table: a word after them is a mistake, not something to ignore.
+  if (TAKES_NO_TABLE.has(subName as string) && parsed.positionals.length > 0) return bad(io, `ref ${subName} takes no table name, got ${parsed.positionals.map((p) => JSON.stringify(p)).join(", ")}`);
   return sub(parsed.positionals, parsed.values, { io, root: findRoot(io.cwd), roots: options.registries ?? [], ...(options.config ? { config: options.config } : {}) });
 }
 

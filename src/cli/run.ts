@@ -2,9 +2,10 @@ import { check, CHECK_USAGE } from "./check.js";
 import { fix, FIX_USAGE } from "./fix.js";
 import { infer, INFER_USAGE } from "./infer.js";
 import { EXIT, type Io } from "./io.js";
-import { lint } from "./lint.js";
+import { lint, LINT_USAGE } from "./lint.js";
+import { badArgument } from "./problems.js";
 import { ref, REF_USAGE } from "./ref.js";
-import { schema } from "./schema.js";
+import { schema, SCHEMA_USAGE } from "./schema.js";
 
 export type { Io } from "./io.js";
 
@@ -14,10 +15,10 @@ const COMMANDS: Readonly<Record<string, Command>> = { check, fix, lint, ref, sch
 
 const USAGE = `usage:
   ${CHECK_USAGE}
-  tablegate lint <contract...>
+  ${LINT_USAGE}
   ${REF_USAGE}
   ${FIX_USAGE}
-  tablegate schema [contract|report]
+  ${SCHEMA_USAGE}
   ${INFER_USAGE}
 `;
 
@@ -27,19 +28,17 @@ const USAGE = `usage:
  */
 export async function run(argv: readonly string[], io: Io): Promise<number> {
   const [name, ...rest] = argv;
-  if (name === undefined || name === "help" || name === "--help" || name === "-h") {
-    (name === undefined ? io.stderr : io.stdout)(USAGE);
-    return name === undefined ? EXIT.unusable : EXIT.pass;
+  if (name === undefined) return badArgument(io, "", `no command given; expected one of ${Object.keys(COMMANDS).join(", ")}`);
+  if (name === "help" || name === "--help" || name === "-h") {
+    io.stdout(USAGE);
+    return EXIT.pass;
   }
   if (name === "--version") {
     io.stdout("0.1.0\n");
     return EXIT.pass;
   }
-  const command = COMMANDS[name];
-  if (!command) {
-    io.stderr(`tablegate: unknown command "${name}"\n${USAGE}`);
-    return EXIT.unusable;
-  }
+  const command = Object.hasOwn(COMMANDS, name) ? COMMANDS[name] : undefined;
+  if (!command) return badArgument(io, "", `unknown command "${name}"; expected one of ${Object.keys(COMMANDS).join(", ")}`);
   try {
     return await command(rest, io);
   } catch (e) {

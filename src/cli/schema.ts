@@ -1,13 +1,22 @@
+import { parseArgs } from "node:util";
 import { schemaPath } from "../schema/locate.js";
 import { EXIT, type Io } from "./io.js";
+import { badArgument, showUsage } from "./problems.js";
+
+export const SCHEMA_USAGE = "tablegate schema [contract|report]";
 
 /** `tablegate schema [report]`: print the path of the contract (or report) JSON Schema. */
 export async function schema(argv: readonly string[], io: Io): Promise<number> {
-  const which = argv[0] ?? "contract";
-  if (which !== "contract" && which !== "report") {
-    io.stderr(`tablegate: schema takes "contract" or "report", got ${JSON.stringify(which)}\n`);
-    return EXIT.unusable;
+  let parsed;
+  try {
+    parsed = parseArgs({ args: [...argv], allowPositionals: true, options: { help: { type: "boolean", short: "h" } } });
+  } catch (e) {
+    return badArgument(io, "schema", (e as Error).message);
   }
+  if (parsed.values.help === true) return showUsage(io, SCHEMA_USAGE);
+  const [which = "contract", ...extra] = parsed.positionals;
+  if (which !== "contract" && which !== "report") return badArgument(io, "schema", `schema takes "contract" or "report", got ${JSON.stringify(which)}`);
+  if (extra.length > 0) return badArgument(io, "schema", `schema takes one argument, "contract" or "report"; unexpected ${extra.map((a) => JSON.stringify(a)).join(", ")}`);
   io.stdout(schemaPath(`${which}.schema.json`) + "\n");
   return EXIT.pass;
 }
