@@ -113,8 +113,10 @@ export function compilePlan({ src, spec, sha256, registry, today = todayDays() }
       },
     };
   };
-  const compileExpr = (text: string, path: YamlPath, aggregates = false): CompiledExpr | undefined => {
-    const r = compileExpression(text, { column: columnIndex, table: lookupTable, tableTrouble: brokenReason, aggregates, columnNames: names, columnType: (i) => spec.columns[names[i] ?? ""]?.type });
+  /** `groupBy` compiles a group assert: aggregates allowed, and those columns bare. */
+  const compileExpr = (text: string, path: YamlPath, groupBy?: readonly number[]): CompiledExpr | undefined => {
+    const group = groupBy === undefined ? {} : { aggregates: true, groupBy };
+    const r = compileExpression(text, { column: columnIndex, table: lookupTable, tableTrouble: brokenReason, ...group, columnNames: names, columnType: (i) => spec.columns[names[i] ?? ""]?.type });
     if (r.ok) return r.expr;
     problems.push(problemAt(src, path, r.message, { offset: r.offset }));
     return undefined;
@@ -230,7 +232,7 @@ export function compilePlan({ src, spec, sha256, registry, today = todayDays() }
     const path: YamlPath = ["groups", i];
     const byNames = typeof g.by === "string" ? [g.by] : [...g.by];
     const by = byNames.map((c, j) => needColumn(c, typeof g.by === "string" ? [...path, "by"] : [...path, "by", j]));
-    const assert = compileExpr(g.assert, [...path, "assert"], true);
+    const assert = compileExpr(g.assert, [...path, "assert"], by.filter((x) => x !== undefined));
     const when = g.when === undefined ? undefined : compileExpr(g.when, [...path, "when"]);
     if (!assert || by.some((x) => x === undefined) || (g.when !== undefined && !when)) return;
     const description = g.description ?? `per ${byNames.join(" + ")}: ${g.assert}`;

@@ -209,7 +209,15 @@ function makeCompiler(source: string, env: ExprEnv) {
   function compileColumn(node: NodeOf<"column">): C | null {
     if (env.aggregates === true && argColumns === null) {
       const n = display(node.name);
-      return fail(node.start, `column ${n} is outside an aggregate; a group assert reads columns through sum(${n}), count(${n}), min(${n}), max(${n}) or first(${n})`);
+      const i = env.column(node.name);
+      // As in SQL HAVING, a column the group is formed by has one value per group: its first row's.
+      if (i !== undefined && env.groupBy?.includes(i) === true) {
+        noteColumn(i);
+        const arg: CompiledExpr = { source: n, columns: [i], evaluate: (r) => r[i] ?? null, aggregates: [] };
+        return dynamic(node, typeOfColumn(env.columnType?.(i)), slotOf("first", arg));
+      }
+      const by = env.groupBy?.map((c) => env.columnNames?.[c]).filter((x) => x !== undefined) ?? [];
+      return fail(node.start, `column ${n} is outside an aggregate; a group assert reads columns through sum(${n}), count(${n}), min(${n}), max(${n}) or first(${n})${by.length > 0 ? `, and names bare only the columns it is grouped by (${by.join(", ")})` : ""}`);
     }
     const i = env.column(node.name);
     if (i === undefined) return unknownColumn(node);
@@ -273,6 +281,11 @@ function makeCompiler(source: string, env: ExprEnv) {
       argType = fn === "count" || fn === "sum" ? "number" : c.type;
       arg = { source: text(argNode), columns: read, evaluate: c.fn, aggregates: [] };
     }
+    return dynamic(node, argType, slotOf(fn, arg));
+  }
+
+  /** The reader of an aggregate's result, the same slot for the same call written twice. */
+  function slotOf(fn: AggregateCall["fn"], arg: CompiledExpr | null): (v: readonly Value[]) => Value {
     const key = `${fn}(${arg === null ? "" : arg.source.replace(/\s+/g, " ")})`;
     let k = aggregateKeys.indexOf(key);
     if (k < 0) {
@@ -281,7 +294,7 @@ function makeCompiler(source: string, env: ExprEnv) {
       aggregateKeys.push(key);
     }
     const slot = k;
-    return dynamic(node, argType, (v) => v[slot] ?? null);
+    return (v) => v[slot] ?? null;
   }
 
   function compileLookup(node: NodeOf<"call">): C | null {

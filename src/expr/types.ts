@@ -19,6 +19,8 @@ export interface ExprEnv {
   tableTrouble?(name: string): string | undefined;
   /** group mode: allow sum(x) count() count(x) min(x) max(x) first(x); bare column refs outside an aggregate are errors */
   readonly aggregates?: boolean;
+  /** group mode: the columns the group is formed by, which may stand bare for the group's value (SQL HAVING) */
+  readonly groupBy?: readonly number[];
   /** declared type of a column, when known: enables type errors at compile time (date compared with a number...) */
   columnType?(index: number): ColumnType | undefined;
   /** all column names, when known: enables "did you mean" suggestions for unknown columns */

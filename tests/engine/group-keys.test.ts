@@ -4,7 +4,7 @@
  * and as keys compare: `01001` and `1001` in an integer column are one employee.
  */
 import { describe, expect, it } from "vitest";
-import { checkJson } from "../helpers/cli.js";
+import { checkJson, runCli } from "../helpers/cli.js";
 
 const failedOf = (report: { checks: readonly { rule: string; failed: number }[] }, rule: string) => report.checks.find((c) => c.rule === rule)?.failed;
 
@@ -74,5 +74,25 @@ describe("allow on a group", () => {
     const tally = (r: typeof within) => r.report.checks.find((c) => c.rule === "group:numbered");
     expect({ code: within.code, failed: tally(within)?.failed, share: tally(within)?.share }).toEqual({ code: 0, failed: 2, share: 0.5 });
     expect({ code: beyond.code, within: tally(beyond)?.within_allowance }).toEqual({ code: 1, within: false });
+  });
+});
+
+describe("a group assert names its own by columns bare", () => {
+  // ISO/IEC 9075 HAVING: a grouping column has one value per group and may stand outside an aggregate.
+  const contract = (assert: string) =>
+    `tablegate: 1\nname: g\ncolumns:\n  region: { type: text }\n  amount: { type: integer }\ngroups:\n  - id: cap\n    by: [region]\n    assert: ${assert}\n`;
+  const data = "region,amount\nWEST,80\nEAST,60\nWEST,70\nEAST,30\nNORTH,200\n";
+
+  it("as the group's value", async () => {
+    const { report } = await checkJson(contract("region = 'WEST' OR sum(amount) <= 100"), data);
+    // WEST (150) is excused by its name, EAST sums to 90, NORTH to 200.
+    expect(report.findings.filter((f) => f.rule === "group:cap").map((f) => f.row)).toEqual([5]);
+  });
+
+  it("but a column the group is not formed by is still a contract error at its position", async () => {
+    const r = await runCli(["lint", "contract.yaml"], { "contract.yaml": contract("amount > 0") });
+    expect(r.code).toBe(2);
+    expect(r.stderr).toMatch(/^tablegate: contract\.yaml:9:13: /);
+    expect(r.stderr.trim().split("\n")).toHaveLength(1);
   });
 });
