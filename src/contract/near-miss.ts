@@ -1,13 +1,20 @@
-/** Levenshtein distance, small inputs only (names, keys, headers). */
+/**
+ * Edit distance with a swap of two neighbouring characters counted as one edit ("flase" is one
+ * typo from "false"), the optimal-string-alignment variant of Damerau–Levenshtein; small inputs only.
+ */
 export function editDistance(a: string, b: string): number {
   if (a === b) return 0;
+  let before: number[] = [];
   let prev = Array.from({ length: b.length + 1 }, (_, j) => j);
   for (let i = 1; i <= a.length; i++) {
     const cur = [i];
     for (let j = 1; j <= b.length; j++) {
       const cost = a[i - 1] === b[j - 1] ? 0 : 1;
-      cur.push(Math.min((prev[j] ?? 0) + 1, (cur[j - 1] ?? 0) + 1, (prev[j - 1] ?? 0) + cost));
+      let d = Math.min((prev[j] ?? 0) + 1, (cur[j - 1] ?? 0) + 1, (prev[j - 1] ?? 0) + cost);
+      if (i > 1 && j > 1 && a[i - 1] === b[j - 2] && a[i - 2] === b[j - 1]) d = Math.min(d, (before[j - 2] ?? 0) + 1);
+      cur.push(d);
     }
+    before = prev;
     prev = cur;
   }
   return prev[b.length] ?? 0;
