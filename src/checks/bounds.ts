@@ -2,6 +2,7 @@ import type { ColumnSpec } from "../contract/types.js";
 import type { SpecError } from "../contract/spec-error.js";
 import { compareValues, formatValue, parseBound } from "../types/index.js";
 import type { Value } from "../values.js";
+import { withArticle } from "./article.js";
 import { miss, type CheckContext, type CheckDefinition, type CompiledCheck } from "./definition.js";
 import { compareWritten } from "./exact-decimal.js";
 
@@ -12,7 +13,7 @@ function bound(spec: ColumnSpec, key: "min" | "max"): Value | SpecError[] {
   const parsed = written === undefined ? undefined : parseBound(spec, written);
   if (parsed === undefined || parsed === null) {
     const want = spec.type === "integer" || spec.type === "decimal" ? "a number" : `an ISO 8601 ${spec.type}`;
-    return [{ path: [key], message: `${key} must be ${want} for a ${spec.type} column; got ${JSON.stringify(written)}` }];
+    return [{ path: [key], message: `${key} must be ${want} for ${withArticle(spec.type)} column; got ${JSON.stringify(written)}` }];
   }
   return parsed;
 }

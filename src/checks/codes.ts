@@ -2,6 +2,7 @@ import type { ColumnSpec } from "../contract/types.js";
 import { keyText } from "../engine/key-text.js";
 import { parseBound } from "../types/bound.js";
 import type { Value } from "../values.js";
+import { withArticle } from "./article.js";
 import { miss, type CheckDefinition } from "./definition.js";
 
 const LISTED = 8;
@@ -50,7 +51,7 @@ export const codes: CheckDefinition = {
         const keys = new Set<string>();
         for (let i = 0; i < c.length; i++) {
           const v = typedCode(spec, c[i] as string | number);
-          if (v === undefined) return [{ path: ["codes", i], message: `code ${JSON.stringify(c[i])} is not a ${spec.type} value${spec.type === "date" || spec.type === "timestamp" || spec.type === "time" ? " written as ISO 8601" : ""}` }];
+          if (v === undefined) return [{ path: ["codes", i], message: `code ${JSON.stringify(c[i])} is not ${withArticle(spec.type)} value${spec.type === "date" || spec.type === "timestamp" || spec.type === "time" ? " written as ISO 8601" : ""}` }];
           keys.add(keyText(v, String(c[i])));
         }
         allowed = keys;
