@@ -34,7 +34,7 @@ export function matchHeader(plan: Plan, cells: readonly string[], line: number):
     findings.push({ check, finding: { rule: meta?.rule ?? "", level: meta?.level ?? "error", line, ...finding } });
   };
   names.forEach((name, i) => {
-    if (byName.has(name)) at(plan.file.headerDuplicate, { column: name, value: name, expected: "each column named once", message: `header names ${name} twice (cells ${(byName.get(name) ?? 0) + 1} and ${i + 1})` });
+    if (byName.has(name)) at(plan.file.headerDuplicate, { column: name, value: name, expected: "each column named once", message: `header names ${JSON.stringify(name)} twice (cells ${(byName.get(name) ?? 0) + 1} and ${i + 1})` });
     else byName.set(name, i);
   });
   const declared = new Set(plan.columns.map((c) => c.name));

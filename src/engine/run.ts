@@ -2,6 +2,7 @@ import type { Plan } from "../contract/plan.js";
 import { isFalse, isTrue } from "../expr/index.js";
 import type { RawRecord, StructureBreak } from "../input/index.js";
 import type { ColumnProfile, Finding, Level } from "../report/model.js";
+import { plural } from "../report/wording.js";
 import type { Value } from "../values.js";
 import { createCollector, type Collector } from "./collector.js";
 import { createFileEnd } from "./file-end.js";
@@ -94,7 +95,7 @@ export async function runPlan(plan: Plan, batches: AsyncIterable<readonly RawRec
     if (cells.length !== h.width) {
       rowHashes?.push(0);
       rowHashes?.push(0);
-      emit(plan.file.width, rowNo, line, () => ({ value: String(cells.length), expected: `${h.width} cells`, message: `record has ${cells.length} cells, expected ${h.width}; its cells are not checked` }));
+      emit(plan.file.width, rowNo, line, () => ({ value: String(cells.length), expected: plural(h.width, "cell"), message: `record has ${plural(cells.length, "cell")}, expected ${h.width}; its cells are not checked` }));
       end.skipped(line);
       return;
     }

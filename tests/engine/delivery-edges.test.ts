@@ -68,6 +68,11 @@ describe("delivery edges", () => {
     const contract = "tablegate: 1\nname: k\ncolumns:\n  id: { type: integer }\n  v: { type: text }\nkeys: [id]\n";
     const { report } = await checkJson(contract, "id,v\n1,a\n1\n1\n");
     expect(checkOf(report, "row.width").failed).toBe(2);
+    // One cell is "1 cell", not "1 cells"; the header's two are "2 cells".
+    const width = expectFinding(report, { rule: "row.width", row: 2, line: 3, value: "1" });
+    expect(width.expected).toBe("2 cells");
+    expect(width.message).toMatch(/\b1 cell\b/);
+    expect(width.message).not.toContain("1 cells");
     expect(checkOf(report, "key:id").failed).toBe(0);
     expect(checkOf(report, "duplicates").failed).toBe(0);
   });

@@ -77,6 +77,14 @@ describe("exact", () => {
     expect(summary(plan, ["sku", "sku", "name", "qty"]).map(([rule]) => rule)).toEqual(["header.duplicate"]);
   });
 
+  it("two empty header names: one duplicate finding that shows the name quoted, with both cell numbers", () => {
+    const m = matchHeader(plan, ["sku", "name", "qty", "", ""], 1);
+    const dup = m.findings.filter((f) => f.finding.rule === "header.duplicate");
+    expect(dup.map((f) => [f.finding.column, f.finding.value])).toEqual([["", ""]]);
+    expect(dup[0]?.finding.message).toContain('""');
+    expect(dup[0]?.finding.message).toMatch(/\b4\b.*\b5\b/);
+  });
+
   it("the first of two equal names is the one read", () => {
     const m = matchHeader(plan, ["sku", "name", "qty", "sku"], 1);
     expect(m.findings.map((f) => f.finding.rule)).toEqual(["header.duplicate"]);
