@@ -38,7 +38,7 @@ export const postal: CheckDefinition = {
       }
       return m;
     };
-    const describe = countryColumn === undefined ? `a ${ref} postal code` : `a postal code of the country in ${ref}`;
+    const describe = countryColumn === undefined ? `a postal code of ${ref}` : `a postal code of the country in ${ref}`;
     return {
       description: `${ctx.column} is ${describe}`,
       test: countryColumn === undefined

@@ -137,7 +137,7 @@ export function parse(source: string): { ok: true; node: Node } | SyntaxFailure 
       next();
       const low = parseConcat();
       if (low === null) return null;
-      if (!isKw(peek(), "AND")) return expected(`AND to complete BETWEEN at ${t.start}`);
+      if (!isKw(peek(), "AND")) return expected(`AND to complete the BETWEEN at character ${t.start + 1} of the expression`);
       next();
       const high = parseConcat();
       if (high === null) return null;
@@ -206,14 +206,14 @@ export function parse(source: string): { ok: true; node: Node } | SyntaxFailure 
     if (!isKw(peek(), "WHEN")) {
       subject = parseOr();
       if (subject === null) return null;
-      if (!isKw(peek(), "WHEN")) return expected(`WHEN to continue CASE at ${caseToken.start}`);
+      if (!isKw(peek(), "WHEN")) return expected(`WHEN to continue the CASE at character ${caseToken.start + 1} of the expression`);
     }
     const branches: { when: Node; then: Node }[] = [];
     while (isKw(peek(), "WHEN")) {
       next();
       const when = parseOr();
       if (when === null) return null;
-      if (!isKw(peek(), "THEN")) return expected(`THEN after the WHEN condition of CASE at ${caseToken.start}`);
+      if (!isKw(peek(), "THEN")) return expected(`THEN after the WHEN condition of the CASE at character ${caseToken.start + 1} of the expression`);
       next();
       const then = parseOr();
       if (then === null) return null;

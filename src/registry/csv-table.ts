@@ -131,7 +131,7 @@ export function parseCsvTable(entry: ManifestTable, bytes: Uint8Array, ctx: Tabl
   for (const { cells, line } of body) {
     if (problems.length >= MAX_PROBLEMS) break;
     if (cells.length !== header.length) {
-      push({ file, line, message: `row has ${cells.length} cells, the header has ${header.length}` });
+      push({ file, line, message: `row has ${cells.length} cell${cells.length === 1 ? "" : "s"}, the header has ${header.length}` });
       continue;
     }
     cells.forEach((v, i) => {
