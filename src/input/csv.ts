@@ -1,7 +1,7 @@
 import { Parser, CsvError } from "csv-parse";
 import type { Decoder } from "./decode.js";
 import { countBreaks, crlfInCells } from "./lines.js";
-import type { RawRecord, StructureBreak } from "./types.js";
+import { MAX_RECORD_SIZE, type RawRecord, type StructureBreak } from "./types.js";
 
 /** Field separator and quote character of a CSV or TSV file; `quote` null means fields are never quoted. */
 export interface CsvDialect {
@@ -29,6 +29,7 @@ export function createCsvParser(dialect: CsvDialect): { parser: Parser } | { err
       record_delimiter: ["\r\n", "\n", "\r"],
       // The decoder has removed any byte order mark already.
       bom: false,
+      max_record_size: MAX_RECORD_SIZE,
     });
     return { parser };
   } catch (e) {
@@ -150,6 +151,8 @@ export async function* readCsv(
 const SETTLE = Buffer.alloc(8);
 
 /** A csv-parse error as a break at the line where the failing record starts. */
+const tooLong = `${MAX_RECORD_SIZE / 1024 / 1024} MiB`;
+
 function parseBreak(err: unknown, line: number): StructureBreak {
   const field = err instanceof CsvError && typeof err.column === "number" ? { column: err.column + 1 } : {};
   const code = err instanceof CsvError ? err.code : undefined;
@@ -158,6 +161,8 @@ function parseBreak(err: unknown, line: number): StructureBreak {
       return { line, message: `unterminated quoted field in the record starting at line ${line}` };
     case "CSV_INVALID_CLOSING_QUOTE":
       return { line, ...field, message: `a closing quote is followed by text in the record starting at line ${line}` };
+    case "CSV_MAX_RECORD_SIZE":
+      return { line, message: `the record starting at line ${line} is longer than ${tooLong} (a quote that never closes?)` };
     case "INVALID_OPENING_QUOTE":
       return { line, ...field, message: `a quote inside an unquoted field in the record starting at line ${line}` };
     default:

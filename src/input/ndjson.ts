@@ -2,7 +2,7 @@ import { StringDecoder } from "node:string_decoder";
 import { memberSources } from "./json-members.js";
 import type { Decoder } from "./decode.js";
 import { readError } from "./csv.js";
-import type { RawRecord, StructureBreak } from "./types.js";
+import { MAX_RECORD_SIZE, type RawRecord, type StructureBreak } from "./types.js";
 
 /**
  * Records of an NDJSON byte stream (one JSON object per LF-ended line), in batches. The first object's
@@ -60,10 +60,16 @@ export async function* readNdjson(
     const all = rest + s;
     let from = 0;
     for (let i = all.indexOf("\n"); i >= 0 && broken === undefined; i = all.indexOf("\n", from)) {
+      if (i - from > MAX_RECORD_SIZE) return tooLong();
       record(all.slice(from, i));
       from = i + 1;
     }
     rest = all.slice(from);
+    if (rest.length > MAX_RECORD_SIZE && broken === undefined) tooLong();
+  };
+  const tooLong = (): void => {
+    broken = { line: line + 1, message: `line ${line + 1} is longer than ${MAX_RECORD_SIZE / 1024 / 1024} Mi characters` };
+    rest = "";
   };
   const take = (): RawRecord[] => {
     const out = batch;

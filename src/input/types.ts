@@ -11,6 +11,13 @@ export interface InputOptions {
   readonly encoding: Encoding;
 }
 
+/**
+ * The longest record a delivery may hold, in bytes for CSV/TSV and characters for an NDJSON line: far
+ * beyond any real row, and a stop for a quote that never closes (which would otherwise swallow the rest
+ * of the file into one cell) before it exhausts memory.
+ */
+export const MAX_RECORD_SIZE = 16 * 1024 * 1024;
+
 /** One record as read: its cells untouched (no trimming) and the 1-based physical line where it starts. */
 export interface RawRecord {
   readonly cells: readonly string[];

@@ -3,6 +3,7 @@
 import { mkdirSync } from "node:fs";
 import { describe, expect, it } from "vitest";
 import { openDelivery } from "../../src/input/index.js";
+import { MAX_RECORD_SIZE } from "../../src/input/types.js";
 import { CSV, readBytes, readChunked, tempFile } from "./helpers.js";
 
 describe("structure breaks", () => {
@@ -16,6 +17,20 @@ describe("structure breaks", () => {
       expect(chunked.rows).toEqual(read.rows);
       expect(chunked.stop?.line).toBe(5);
     }
+  });
+
+  it("a quote that never closes stops at MAX_RECORD_SIZE instead of holding the rest of the file", async () => {
+    const text = `id,note\n1,a\n2,"never closed\n${"x,y\n".repeat(MAX_RECORD_SIZE / 4 + 10)}`;
+    const read = await readBytes(text);
+    expect(read.rows).toEqual([["id", "note"], ["1", "a"]]);
+    expect(read.stop?.line).toBe(3);
+  });
+
+  it("an NDJSON line longer than MAX_RECORD_SIZE stops at that line", async () => {
+    const text = `{"a":1}\n{"a":"${"x".repeat(MAX_RECORD_SIZE + 10)}"}\n{"a":3}\n`;
+    const read = await readBytes(text, { format: "ndjson" }, ".ndjson");
+    expect(read.rows).toEqual([["a"], ["1"]]);
+    expect(read.stop?.line).toBe(2);
   });
 
   it("an unterminated quote after skipped empty lines counts them", async () => {
