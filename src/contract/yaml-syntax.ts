@@ -16,6 +16,8 @@ export function explainSyntaxError(text: string, doc: Document.Parsed, lines: Li
   const at = first.pos[0];
   const plain = { offset: at, message: firstLine(first.message) };
   switch (first.code) {
+    case "RESOURCE_EXHAUSTION":
+      return { offset: at, message: "the YAML nests too deeply here; a contract needs only a few levels" };
     case "TAB_AS_INDENT":
       return { offset: at, message: "a tab indents this line; YAML indents with spaces only" };
     case "MULTIPLE_DOCS":

@@ -315,6 +315,15 @@ describe("broken contracts", () => {
     expect({ code: r.code, stderr: r.stderr }).toEqual({ code: 0, stderr: "" });
   });
 
+  it("lists nested thousands deep are one line on the line where they are, not a crash", async () => {
+    // The yaml package stops where its parser runs out of stack (RESOURCE_EXHAUSTION); how deep that
+    // is depends on the stack, so only the line is pinned.
+    const r = await runCli(["lint", "contract.yaml"], { "contract.yaml": head + "columns:\n  a: { type: text }\nx: " + "[".repeat(3000) + "]".repeat(3000) + "\n" });
+    expect(r.code).toBe(2);
+    expect(r.stderr.trim().split("\n")).toHaveLength(1);
+    expect(r.stderr).toMatch(/^tablegate: contract\.yaml:5:\d+: /);
+  });
+
   it("YAML merge keys (<<: *anchor) share column options", async () => {
     const r = await runCli(["check", "data.csv", "--contract", "contract.yaml", "--report", "json=-"], {
       "contract.yaml": head + "columns:\n  a: &code { type: text, max_length: 2 }\n  b: { <<: *code, required: true }\n",
