@@ -22,23 +22,42 @@ export function editDistance(a: string, b: string): number {
 
 const fold = (s: string): string => s.trim().toLowerCase().replace(/[\s_-]+/g, "_");
 
+/** Names longer than this are matched only when equal after folding: edit distance costs length squared. */
+const MAX_EDITED = 64;
+
 /**
  * The candidate closest to `name`, if close enough to be a likely typo: equal after folding case,
  * spaces, dashes and underscores, or within a third of its length in edits.
  */
 export function nearMiss(name: string, candidates: Iterable<string>): string | undefined {
-  let best: string | undefined;
-  let bestScore = Infinity;
-  const folded = fold(name);
-  for (const c of candidates) {
-    const score = fold(c) === folded ? 0 : editDistance(folded, fold(c));
-    if (score < bestScore) [best, bestScore] = [c, score];
-  }
-  return best !== undefined && bestScore <= Math.max(1, Math.floor(name.length / 3)) ? best : undefined;
+  return nearMissAmong(candidates)(name);
+}
+
+/** `nearMiss` against one list of candidates, folded once, for asking about many names. */
+export function nearMissAmong(candidates: Iterable<string>): (name: string) => string | undefined {
+  const list = [...candidates].map((c) => ({ c, f: fold(c) }));
+  return (name) => {
+    const folded = fold(name);
+    const limit = Math.max(1, Math.floor(name.length / 3));
+    let best: string | undefined;
+    let bestScore = Infinity;
+    for (const { c, f } of list) {
+      if (f === folded) return c;
+      // Lengths further apart than the limit are at least that many edits apart.
+      if (Math.abs(f.length - folded.length) > limit || folded.length > MAX_EDITED || f.length > MAX_EDITED) continue;
+      const score = editDistance(folded, f);
+      if (score < bestScore) [best, bestScore] = [c, score];
+    }
+    return bestScore <= limit ? best : undefined;
+  };
 }
 
 /** ` (did you mean "x"?)` or nothing. */
 export function suggestion(name: string, candidates: Iterable<string>): string {
-  const hit = nearMiss(name, candidates);
+  return said(nearMiss(name, candidates));
+}
+
+/** ` (did you mean "x"?)` for a hit, nothing for none. */
+export function said(hit: string | undefined): string {
   return hit === undefined ? "" : ` (did you mean "${hit}"?)`;
 }

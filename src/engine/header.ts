@@ -1,4 +1,4 @@
-import { suggestion } from "../contract/near-miss.js";
+import { nearMissAmong, said } from "../contract/near-miss.js";
 import type { Plan } from "../contract/plan.js";
 import type { Finding } from "../report/model.js";
 
@@ -18,6 +18,9 @@ export interface HeaderMatch {
 export function positional(plan: Plan): HeaderMatch {
   return { positions: Int32Array.from(plan.columns, (_, i) => i), width: plan.columns.length, findings: [] };
 }
+
+/** How many (missing, undeclared) name pairs a header may have and still get "did you mean" suggestions. */
+const SUGGESTION_PAIRS = 10_000;
 
 /**
  * Match a header record against the declared columns by trimmed name, whatever the policy, so the
@@ -39,14 +42,19 @@ export function matchHeader(plan: Plan, cells: readonly string[], line: number):
   });
   const declared = new Set(plan.columns.map((c) => c.name));
   const extras = names.filter((n, i) => !declared.has(n) && byName.get(n) === i);
+  const missing = plan.columns.filter((c) => !byName.has(c.name)).map((c) => c.name);
+  // A header far from its contract (thousands of names) gets no suggestions: they would be guesses,
+  // and pairing every name with every other costs too much.
+  const suggest = missing.length * extras.length <= SUGGESTION_PAIRS;
+  const nearExtra = nearMissAmong(suggest ? extras : []);
+  const nearMissing = nearMissAmong(suggest ? missing : []);
   for (const col of plan.columns) {
     const pos = byName.get(col.name);
     if (pos !== undefined) positions[col.index] = pos;
-    else at(plan.file.headerMissing, { column: col.name, expected: col.name, message: `header has no column ${col.name}${suggestion(col.name, extras)}` });
+    else at(plan.file.headerMissing, { column: col.name, expected: col.name, message: `header has no column ${col.name}${said(nearExtra(col.name))}` });
   }
   for (const name of extras) {
-    const near = suggestion(name, plan.columns.filter((c) => !byName.has(c.name)).map((c) => c.name));
-    at(plan.file.headerUnexpected, { column: name, value: name, expected: "a declared column", message: `header has undeclared column ${JSON.stringify(name)}${near}` });
+    at(plan.file.headerUnexpected, { column: name, value: name, expected: "a declared column", message: `header has undeclared column ${JSON.stringify(name)}${said(nearMissing(name))}` });
   }
   // Order concerns the declared columns that are present, relative to each other: a missing, extra
   // or repeated name is its own finding and does not make the others "out of order".

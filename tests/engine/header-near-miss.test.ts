@@ -21,3 +21,25 @@ describe("header near miss", () => {
     expect(unexpected?.column).toBe("colour");
   });
 });
+
+describe("a header far from its contract", () => {
+  // 120 declared columns, none in a header of 120 other names: 14,400 pairs, past the 10,000 that get
+  // suggestions. Every name is still reported; none is guessed at.
+  const declared = Array.from({ length: 120 }, (_, i) => `amount_${i}`);
+  const big = `tablegate: 1\nname: far\ninput: { header: any-order }\ncolumns:\n${declared.map((c) => `  ${c}: { type: integer }\n`).join("")}`;
+  const header = declared.map((c) => `${c}x`).join(",");
+
+  it("reports every missing and undeclared name, without suggestions", async () => {
+    const { report } = await checkJson(big, `${header}\n`, ["--max-findings", "1000"]);
+    const missing = report.checks.find((c) => c.rule === "header.missing")?.failed;
+    const unexpected = report.checks.find((c) => c.rule === "header.unexpected")?.failed;
+    expect({ missing, unexpected }).toEqual({ missing: 120, unexpected: 120 });
+    expect(report.findings.filter((f) => f.message.includes("did you mean"))).toEqual([]);
+  });
+
+  it("the same near misses a few at a time are suggested", async () => {
+    const few = `tablegate: 1\nname: far\ninput: { header: any-order }\ncolumns:\n${declared.slice(0, 3).map((c) => `  ${c}: { type: integer }\n`).join("")}`;
+    const { report } = await checkJson(few, `${declared.slice(0, 3).map((c) => `${c}x`).join(",")}\n`);
+    expect(report.findings.filter((f) => f.message.includes("did you mean"))).toHaveLength(6);
+  });
+});
