@@ -38,3 +38,22 @@ describe("padded cells", () => {
     expect({ spaces: rows("emp.spaces"), required: rows("emp.required") }).toEqual({ spaces: [1, 2, 3], required: [1, 2, 3, 4, 5] });
   });
 });
+
+describe("long cells", () => {
+  // README "Choices": a cell past 1,000 characters shows its first 1,000 and …(+N).
+  it("show their first 1,000 characters and how many more, in value and message", async () => {
+    const long = "x".repeat(4000) + "END";
+    const { report } = await checkJson("tablegate: 1\nname: long\ncolumns:\n  a: { type: integer }\n", `a\n${long}\n`);
+    const f = expectFinding(report, { rule: "a.type", row: 1, line: 2, column: "a" });
+    expect(f.value).toBe(`${"x".repeat(1000)}…(+3003)`);
+    expect(f.message).toContain("…(+3003)");
+    expect(f.message).not.toContain("END");
+  });
+
+  it("never cut a character that takes two UTF-16 units in half", async () => {
+    const long = "x".repeat(999) + "🏕" + "y".repeat(10);
+    const { report } = await checkJson("tablegate: 1\nname: long\ncolumns:\n  a: { type: integer }\n", `a\n${long}\n`);
+    const f = expectFinding(report, { rule: "a.type", row: 1, line: 2 });
+    expect(f.value).toBe(`${"x".repeat(999)}…(+12)`);
+  });
+});
