@@ -7,6 +7,7 @@ import type { Plan } from "../contract/plan.js";
 import type { Problem, Result } from "../problem.js";
 import { contractFor, loadProjectConfig, type ProjectConfig } from "../project/config.js";
 import { changedSince, DATA_FILE, routedFiles } from "../project/files.js";
+import { linkOutReason } from "../project/inside.js";
 import type { DeliveryReport, Level } from "../report/model.js";
 import { loadRegistry, verifyLock, type Registry } from "../registry/index.js";
 import { EXIT, type Io } from "./io.js";
@@ -85,6 +86,8 @@ export async function check(argv: readonly string[], io: Io): Promise<number> {
       plans.set(job.contract, plan);
     }
     const path = resolve(root, job.file);
+    const linked = await linkOutReason(root, path);
+    if (linked !== undefined) return unusable(io, [{ file: job.file, message: `delivery ${linked}` }]);
     const size = io.stderrIsTty ? ((await stat(path).catch(() => undefined))?.size ?? 0) : 0;
     let read = 0;
     const progress = io.stderrIsTty ? createProgress(io.stderr, job.file, size, () => read) : undefined;
@@ -144,6 +147,8 @@ async function planJobs(root: string, config: ProjectConfig, files: string[], co
 
 /** Compile a contract (root-relative path) against the registry, refusing tables that left their lock. */
 export async function loadPlan(root: string, contract: string, registry: Registry): Promise<Result<Plan>> {
+  const linked = await linkOutReason(root, contract);
+  if (linked !== undefined) return { ok: false, problems: [{ file: contract, message: `contract ${linked}` }] };
   const loaded = await loadContract(resolve(root, contract), { registry, label: contract });
   if (!loaded.ok) return loaded;
   const lock = await verifyLock(root, registry, loaded.value.references.map((r) => r.table));

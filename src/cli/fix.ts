@@ -5,6 +5,7 @@ import { fixSummary } from "../fix/summary.js";
 import { checkTargets, type FixTargets } from "../fix/targets.js";
 import { contractFor, loadProjectConfig } from "../project/config.js";
 import { loadRegistry } from "../registry/index.js";
+import { linkOutReason } from "../project/inside.js";
 import { loadPlan } from "./check.js";
 import { EXIT, type Io } from "./io.js";
 import { badArgument, showUsage, unusable } from "./problems.js";
@@ -58,6 +59,8 @@ export async function fix(argv: readonly string[], io: Io): Promise<number> {
   const loaded = await loadPlan(root, contract, registry.value);
   if (!loaded.ok) return unusable(io, loaded.problems);
 
+  const linked = await linkOutReason(root, input);
+  if (linked !== undefined) return unusable(io, [{ file: inputLabel, message: `delivery ${linked}` }]);
   const r = await fixFile(loaded.value, input, targets, { input: inputLabel, contract, out: shown.out });
   if (!r.ok) return unusable(io, r.problems.map((p) => ({ ...p, file: p.file === input ? inputLabel : p.file })));
   io.stderr(fixSummary(r.value, inputLabel, contract, shown));

@@ -2,6 +2,7 @@ import { readFile } from "node:fs/promises";
 import { join } from "node:path";
 import { schemaProblems } from "../contract/schema-errors.js";
 import { problemAt, parseYamlSource, yamlData } from "../contract/yaml-source.js";
+import { staysInside } from "./inside.js";
 import type { Problem, Result } from "../problem.js";
 import { schemaValidator } from "../schema/validator.js";
 import { globToRegExp } from "./glob.js";
@@ -40,6 +41,8 @@ export async function loadProjectConfig(root: string): Promise<Result<ProjectCon
   };
   const validator = schemaValidator("project");
   if (!validator.valid(data)) return { ok: false, problems: schemaProblems(src, data, validator.errors(data)) };
+  const escaping = (data.deliveries ?? []).findIndex((d) => !staysInside(d.contract));
+  if (escaping >= 0) return { ok: false, problems: [problemAt(src, ["deliveries", escaping, "contract"], "a contract path is relative to the repository root and stays inside it (no leading / and no .. above the root)")] };
   const routes = (data.deliveries ?? []).map((d) => {
     const globs = typeof d.files === "string" ? [d.files] : d.files;
     return { globs, matchers: globs.map(globToRegExp), contract: d.contract };
