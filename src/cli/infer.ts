@@ -7,6 +7,7 @@ import { schemaPath } from "../schema/locate.js";
 import { EXIT, type Io } from "./io.js";
 import { badArgument, showUsage, unusable } from "./problems.js";
 import { findRoot, reportPath } from "./root.js";
+import { linkOutReason } from "../project/inside.js";
 
 export const INFER_USAGE = "tablegate infer <file> [--name <n>]";
 
@@ -38,6 +39,8 @@ export async function infer(argv: readonly string[], io: Io): Promise<number> {
   const root = findRoot(io.cwd);
   const path = isAbsolute(file) ? file : join(io.cwd, file);
   const shown = reportPath(root, path);
+  const linked = await linkOutReason(root, path);
+  if (linked !== undefined) return unusable(io, [{ file: shown, message: `delivery ${linked}` }]);
   const inferred = await inferContract(path, { format, name, file: shown, schema: schemaLink(io.cwd) });
   if (!inferred.ok) return unusable(io, inferred.problems.map((p) => ({ ...p, file: p.file === path ? shown : p.file })));
 

@@ -61,3 +61,13 @@ describe("links out of the repository", () => {
     expect(r.code).toBe(1);
   });
 });
+
+describe("infer and links", () => {
+  it("infer refuses a delivery that links outside, printing none of it", async () => {
+    const { root, secret } = setUp();
+    symlinkSync(secret, join(root, "data", "w49.csv"));
+    const r = await tablegate(root, "infer", "data/w49.csv");
+    expect(r.code).toBe(2);
+    expect(r.out + r.err).not.toContain("TOP-SECRET-VALUE");
+  });
+});
