@@ -1,4 +1,5 @@
-import { appendFile, readFile, writeFile } from "node:fs/promises";
+import { appendFile, readFile } from "node:fs/promises";
+import { writeWholeFile } from "../atomic-file.js";
 import { isAbsolute, join } from "node:path";
 import type { Result } from "../problem.js";
 import type { DeliveryReport } from "../report/model.js";
@@ -53,11 +54,8 @@ export async function writeReports(reports: readonly DeliveryReport[], targets: 
       continue;
     }
     const path = isAbsolute(t.path) ? t.path : join(io.cwd, t.path);
-    try {
-      await writeFile(path, body);
-    } catch (e) {
-      return { ok: false, problems: [{ file: t.path, message: `cannot write ${t.format} report: ${(e as NodeJS.ErrnoException).code ?? (e as Error).message}` }] };
-    }
+    const written = await writeWholeFile(path, body);
+    if (!written.ok) return { ok: false, problems: written.problems.map((p) => ({ ...p, file: t.path, message: `cannot write ${t.format} report: ${p.message.replace(/^cannot be written: /, "")}` })) };
   }
   return { ok: true, value: undefined };
 }

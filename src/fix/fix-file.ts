@@ -5,7 +5,7 @@ import { matchHeader, positional, type HeaderMatch } from "../engine/header.js";
 import { runPlan } from "../engine/run.js";
 import { openDelivery, type Delivery, type InputOptions, type RawRecord } from "../input/index.js";
 import { fail, ok, type Problem, type Result } from "../problem.js";
-import { createAtomicFile, type AtomicFile } from "./atomic-file.js";
+import { createAtomicFile, type AtomicFile } from "../atomic-file.js";
 import { REPAIR_NAMES, type RepairName } from "./cell-repair.js";
 import { changeLine, rejectLine } from "./change-log.js";
 import { csvLine, type CsvDialect } from "./csv-line.js";

@@ -1,4 +1,5 @@
-import { mkdir, readFile, rename, writeFile } from "node:fs/promises";
+import { mkdir, readFile } from "node:fs/promises";
+import { writeWholeFile } from "../atomic-file.js";
 import { dirname, join } from "node:path";
 import { fail, ok, type Problem, type Result } from "../problem.js";
 import type { Registry } from "./load.js";
@@ -155,11 +156,10 @@ export async function writeLock(repoRoot: string, registry: Registry): Promise<R
   if (before === text) return ok({ lock, changed: false });
   try {
     await mkdir(dirname(path), { recursive: true });
-    const tmp = `${path}.${process.pid}.tmp`;
-    await writeFile(tmp, text, "utf8");
-    await rename(tmp, path);
   } catch {
     return fail({ file: LOCK_FILE, message: "cannot write the lock" });
   }
+  const written = await writeWholeFile(path, text);
+  if (!written.ok) return fail({ file: LOCK_FILE, message: "cannot write the lock" });
   return ok({ lock, changed: true });
 }

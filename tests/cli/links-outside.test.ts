@@ -3,7 +3,7 @@
  * symbolic link. A path inside the repository that leads outside it is refused (exit 2, one line),
  * so a report never prints the lines of a file outside the repository.
  */
-import { mkdirSync, symlinkSync, writeFileSync } from "node:fs";
+import { lstatSync, mkdirSync, readFileSync, symlinkSync, writeFileSync } from "node:fs";
 import { join } from "node:path";
 import { describe, expect, it } from "vitest";
 import { tablegate } from "../registry/helpers.js";
@@ -69,5 +69,18 @@ describe("infer and links", () => {
     const r = await tablegate(root, "infer", "data/w49.csv");
     expect(r.code).toBe(2);
     expect(r.out + r.err).not.toContain("TOP-SECRET-VALUE");
+  });
+});
+
+describe("reports and links", () => {
+  it("a report path that is a link is replaced by the report, and the file it pointed to is untouched", async () => {
+    const { root, secret } = setUp();
+    writeFileSync(join(root, "data", "w49.csv"), "id\n1\n");
+    symlinkSync(secret, join(root, "report.json"));
+    const r = await tablegate(root, "check", "data/w49.csv", "--contract", "contracts/orders.contract.yaml", "--report", "json=report.json");
+    expect(r.code).toBe(0);
+    expect(readFileSync(secret, "utf8")).toBe("id\nTOP-SECRET-VALUE\n");
+    expect(lstatSync(join(root, "report.json")).isSymbolicLink()).toBe(false);
+    expect(JSON.parse(readFileSync(join(root, "report.json"), "utf8"))).toMatchObject({ verdict: "pass" });
   });
 });

@@ -1,7 +1,7 @@
 import { randomBytes } from "node:crypto";
-import { open, rename, rm, type FileHandle } from "node:fs/promises";
+import { lstat, open, rename, rm, writeFile, type FileHandle } from "node:fs/promises";
 import { basename, dirname, join } from "node:path";
-import { fail, ok, type Result } from "../problem.js";
+import { fail, ok, type Result } from "./problem.js";
 
 /** Text written to a temporary file beside its target, which replaces the target only on `commit`. */
 export interface AtomicFile {
@@ -66,4 +66,25 @@ export async function createAtomicFile(path: string, mode: number): Promise<Resu
       await rm(temp, { force: true }).catch(() => undefined);
     },
   });
+}
+
+/**
+ * Write `text` as the whole of `path` through a temporary file and a rename, so a symbolic link at
+ * `path` (a pull request can add one) is replaced, never followed, and a reader never sees half a file.
+ * A device or pipe already there (`/dev/stderr`) is written directly: renaming over it is impossible.
+ */
+export async function writeWholeFile(path: string, text: string): Promise<Result<void>> {
+  const there = await lstat(path).catch(() => undefined);
+  if (there !== undefined && !there.isFile() && !there.isSymbolicLink() && !there.isDirectory()) {
+    try {
+      await writeFile(path, text);
+      return ok(undefined);
+    } catch (e) {
+      return fail({ file: path, message: `cannot be written: ${(e as NodeJS.ErrnoException).code ?? (e as Error).message}` });
+    }
+  }
+  const file = await createAtomicFile(path, 0o666);
+  if (!file.ok) return file;
+  file.value.write(text);
+  return file.value.commit();
 }
