@@ -75,7 +75,7 @@ export function parseIsoTime(text: string): number | undefined {
   // a one-digit hour ("9:05") is how spreadsheets commonly export times: accept it
   const h = len === 4 || len === 7 ? 1 : 2;
   if (len !== 3 + h && len !== 6 + h) return undefined;
-  const hour = h === 1 ? text.charCodeAt(0) - 48 : twoDigits(text, 0);
+  const hour = h === 1 ? oneDigit(text, 0) : twoDigits(text, 0);
   if (!(hour >= 0 && hour <= 23) || text.charCodeAt(h) !== 58) return undefined;
   const minute = twoDigits(text, h + 1);
   if (minute < 0 || minute > 59) return undefined;
@@ -86,4 +86,10 @@ export function parseIsoTime(text: string): number | undefined {
     if (second < 0 || second > 59) return undefined;
   }
   return hour * 3600 + minute * 60 + second;
+}
+
+/** The digit at `pos`, or -1 for anything else (":" is 58, one past "9": never hour 10). */
+function oneDigit(text: string, pos: number): number {
+  const d = text.charCodeAt(pos) - 48;
+  return d >= 0 && d <= 9 ? d : -1;
 }
