@@ -52,11 +52,13 @@ export const codes: CheckDefinition = {
         for (let i = 0; i < c.length; i++) {
           const v = typedCode(spec, c[i] as string | number);
           if (v === undefined) return [{ path: ["codes", i], message: `code ${JSON.stringify(c[i])} is not ${withArticle(spec.type)} value${spec.type === "date" || spec.type === "timestamp" || spec.type === "time" ? " written as ISO 8601" : ""}` }];
-          keys.add(keyText(v, String(c[i])));
+          // The digits as written: a YAML number past 2^53 is already rounded.
+          keys.add(keyText(v, written[i] as string));
         }
         allowed = keys;
       } else allowed = new Set(written);
-      where = listing(written);
+      // A sensitive column's codes are its values: say how many, never which.
+      where = ctx.sensitive(ctx.column) ? `the ${written.length} listed codes (not shown: the column is sensitive)` : listing(written);
     } else {
       const { table, column } = c as { table: string; column: string };
       const set = ctx.codeSet(table, column);

@@ -6,6 +6,7 @@ import { describe, expect, it } from "vitest";
 import { compileContract } from "../../src/contract/load.js";
 import type { ColumnSpec } from "../../src/contract/types.js";
 import { loadRegistry } from "../../src/registry/index.js";
+import { checkJson, runCli } from "../helpers/cli.js";
 import { compiled, fakeContext, judge, passes, specErrors } from "./helpers.js";
 
 describe("inline codes", () => {
@@ -120,5 +121,28 @@ describe("registry codes on a typed column", () => {
     const ctx = fakeContext({ codeSet: () => new Set(["5", "10", "n/a"]) });
     const spec: ColumnSpec = { type: "integer", codes: { table: "ship-methods", column: "transit_days" } };
     expect(["5", "05", "10", "7"].map((t) => passes("codes", spec, t, ctx))).toEqual([true, true, true, false]);
+  });
+});
+
+describe("codes as the contract wrote them", () => {
+  // YAML 1.2 reads 9007199254740993 as a number, which a double cannot hold (it becomes ...992,
+  // IEEE 754 binary64); the code is the digits written, as integer keys compare digits past 2^53.
+  it("an integer code past 2^53 matches its own digits only", async () => {
+    const contract = "tablegate: 1\nname: big\ncolumns:\n  id: { type: integer, codes: [9007199254740993, 12345678901234567891] }\n";
+    const { report } = await checkJson(contract, "id\n9007199254740993\n9007199254740992\n12345678901234567891\n12345678901234567890\n");
+    expect(report.findings.map((f) => `${f.rule}@${f.row}`)).toEqual(["id.codes@2", "id.codes@4"]);
+  });
+
+  // SPEC §1.1: a sensitive column's raw values are never printed; its allowed codes are such values.
+  it("a sensitive column's list is never printed, in the check or in a finding", async () => {
+    const contract = "tablegate: 1\nname: acct\ncolumns:\n  account: { type: text, sensitive: true, codes: [GB29NWBK60161331926819, DE89370400440532013000] }\n";
+    const r = await checkJson(contract, "account\nGB29NWBK60161331926819\nFR1420041010050500013M02606\n");
+    expect(r.report.findings.map((f) => `${f.rule}@${f.row}`)).toEqual(["account.codes@2"]);
+    expect(r.stdout).not.toMatch(/GB29NWBK|DE893704|FR142004/);
+    const every = ["text", "sarif", "junit", "github", "codequality", "html"].flatMap((f) => ["--report", `${f}=-`]);
+    const all = await runCli(["check", "data.csv", "--contract", "contract.yaml", ...every], { "contract.yaml": contract, "data.csv": "account\nGB29NWBK60161331926819\nFR1420041010050500013M02606\n" });
+    expect(all.code).toBe(1);
+    expect(all.stdout.length).toBeGreaterThan(1000);
+    expect(all.stdout).not.toMatch(/GB29NWBK|DE893704|FR142004/);
   });
 });
