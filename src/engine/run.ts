@@ -14,6 +14,15 @@ import { createRowHasher } from "./row-hash.js";
 import { createSeenSet, type SeenSet } from "./seen-set.js";
 import { cellValue, shownValue } from "./shown.js";
 
+/**
+ * Whether String.prototype.trim could remove this UTF-16 unit: its white space and line terminators
+ * (ECMA-262 §22.1.3.32: Zs, tab, VT, FF, U+FEFF, LF, CR, U+2028, U+2029). Most cells start and end
+ * with neither, and this test is cheaper than trimming them.
+ */
+function mayTrim(c: number): boolean {
+  return c <= 32 || c === 160 || (c >= 0x1680 && (c === 0x1680 || (c >= 0x2000 && c <= 0x200a) || c === 0x2028 || c === 0x2029 || c === 0x202f || c === 0x205f || c === 0x3000 || c === 0xfeff));
+}
+
 export interface EngineOptions {
   readonly maxFindings: number;
   /** Also summarise every column for people (the HTML report). */
@@ -110,7 +119,7 @@ export async function runPlan(plan: Plan, batches: AsyncIterable<readonly RawRec
         continue;
       }
       const raw = cells[pos] ?? "";
-      const text = raw.length > 0 && (raw.charCodeAt(0) <= 32 || raw.charCodeAt(raw.length - 1) <= 32 || raw.charCodeAt(0) === 160 || raw.charCodeAt(raw.length - 1) === 160) ? raw.trim() : raw;
+      const text = raw.length > 0 && (mayTrim(raw.charCodeAt(0)) || mayTrim(raw.charCodeAt(raw.length - 1))) ? raw.trim() : raw;
       raws[i] = raw;
       if (text === "" || (text.length <= blankMax && blank.has(text))) {
         values[i] = null;

@@ -57,3 +57,12 @@ describe("long cells", () => {
     expect(f.value).toBe(`${"x".repeat(999)}…(+12)`);
   });
 });
+
+describe("every space trim removes", () => {
+  // ECMA-262 String.prototype.trim removes Unicode Zs spaces and line terminators, U+3000 and U+2028
+  // among them; SPEC §1.1 "Cells are trimmed before every check": such a cell is its value, padded.
+  it.each([["\u3000"], ["\u2028"], ["\u00a0"], ["\ufeff"], ["\u2003"]])("a cell padded with %j is trimmed and a spaces finding", async (pad) => {
+    const { report } = await checkJson("tablegate: 1\nname: pad\ncolumns:\n  a: { type: integer, codes: [7] }\n", `a\n${pad}7${pad}\n`);
+    expect(report.findings.map((f) => f.rule)).toEqual(["a.spaces"]);
+  });
+});
