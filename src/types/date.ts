@@ -21,6 +21,11 @@ export function compileDate(spec: ColumnSpec): CompiledType {
       });
       continue;
     }
+    // A pattern with no % at all is a name, and the only names are the two serial systems.
+    if (!format.includes("%")) {
+      errors.push({ path, message: `unknown date format ${JSON.stringify(format)}; expected a strftime pattern such as "%Y-%m-%d", or serial-1900 or serial-1904` });
+      continue;
+    }
     const compiled = compileStrftime(format, "date", ["serial-1900", "serial-1904"]);
     if (compiled.ok) {
       parsers.push(compiled.parse as (text: string) => DateValue | undefined);

@@ -132,3 +132,12 @@ describe("date format errors", () => {
     ]);
   });
 });
+
+describe("a format name that is not a serial system", () => {
+  // SPEC §1.1 names two: serial-1900 and serial-1904; the error lists what is allowed.
+  it("is refused at its place, naming the allowed forms", () => {
+    const errors = errorsFor({ type: "date", format: ["%Y-%m-%d", "serial-2000"] });
+    expect(errors.map((e) => e.path)).toEqual([["format", 1]]);
+    expect(errors[0]?.message).toMatch(/serial-1900.*serial-1904/);
+  });
+});
