@@ -121,7 +121,14 @@ async function main(): Promise<number> {
       const ran = !failedToRun(m, [0, 1]) && (await failedByRule(out)) !== undefined;
       return ran ? { series: { label, runs: [m] } } : { series: { label, runs: [] }, note: `${label}: did not run (${explain("", m).trim()})` };
     };
+    // The floor: the same columns as text with nothing to check (no options, keys or duplicates), so
+    // only reading, parsing and handing rows to the engine remain.
+    const bare16 = join(scratch, "dealer-sales-nothing-checked.contract.yaml");
+    const columns = doc.get("columns") as { items: { key: unknown }[] };
+    const names = columns.items.map((item) => String((item.key as { value?: unknown }).value ?? item.key));
+    await writeFile(bare16, `tablegate: 1\nname: nothing-checked\nduplicates: off\ncolumns:\n${names.map((n) => `  ${n}: { type: text, spaces: allow }\n`).join("")}`);
     const columnsOnly = await single("tablegate, no rules/groups/outliers", stripped, []);
+    const nothing = await single("tablegate, nothing checked (floor)", bare16, []);
     const oneThread = await single("tablegate, --parse-thread off", CONTRACT, ["--parse-thread", "off"]);
 
     const header = `${"".padEnd(34)}${"median".padStart(10)}${"rows/s".padStart(12)}${"MB/s".padStart(9)}${"peak RSS".padStart(11)}`;
@@ -132,7 +139,7 @@ async function main(): Promise<number> {
       row(bare, gen),
       row(full, gen),
     ];
-    for (const one of [oneThread, columnsOnly]) lines.push(one.note ?? row(one.series, gen));
+    for (const one of [oneThread, columnsOnly, nothing]) lines.push(one.note ?? row(one.series, gen));
     const ratio = median(full.runs.map((r) => r.wallMs)) / median(bare.runs.map((r) => r.wallMs));
     lines.push(`ratio tablegate / bare csv-parse (median wall time): ${fmt(ratio, 2)}`);
     const cpu = (s: readonly Measurement[]) => median(s.map((r) => r.cpuMs ?? Number.NaN));
@@ -141,6 +148,7 @@ async function main(): Promise<number> {
       lines.push(`ratio of CPU time, all threads (user + system, median; the work done, where wall time is the wait): ${fmt(cpuRatio, 2)} (${fmt(cpu(full.runs) / 1000, 2)} s against ${fmt(cpu(bare.runs) / 1000, 2)} s)`);
     }
     const columnsRun = columnsOnly.series.runs[0];
+    const nothingRun = nothing.series.runs[0];
     const oneThreadRun = oneThread.series.runs[0];
     if (oneThreadRun !== undefined) {
       lines.push(`with reading and parsing on the main thread (--parse-thread off): ratio ${fmt(oneThreadRun.wallMs / median(bare.runs.map((r) => r.wallMs)), 2)} (one run, indicative)`);
@@ -148,6 +156,9 @@ async function main(): Promise<number> {
     if (columnsRun !== undefined) {
       const share = 1 - columnsRun.wallMs / median(full.runs.map((r) => r.wallMs));
       lines.push(`rules, groups and outliers take about ${fmt(share * 100, 0)}% of tablegate's time (one run, indicative)`);
+    }
+    if (nothingRun !== undefined) {
+      lines.push(`with nothing to check, reading alone: ratio ${fmt(nothingRun.wallMs / median(bare.runs.map((r) => r.wallMs)), 2)} (one run, indicative: the least any contract for this file costs)`);
     }
 
     const found = await failedByRule(report);
