@@ -166,8 +166,11 @@ function afterQuote(text: string, offset: number): SyntaxHint | undefined {
   const m = /:\s+(["'])/.exec(before);
   if (!m || !before.endsWith(m[1] as string)) return undefined;
   const other = m[1] === '"' ? "'" : '"';
-  return {
-    offset,
-    message: `text after the closing ${m[1]} of a quoted value; to keep ${m[1]} inside the value, wrap the whole value in ${other} (${other}${text.slice(start + m.index + m[0].length - 1, text.indexOf("\n", offset) >>> 0).trim()}${other})`,
-  };
+  const advice = `text after the closing ${m[1]} of a quoted value; to keep ${m[1]} inside the value, wrap the whole value in ${other}`;
+  // A block value runs to the end of its line, so the whole value can be shown wrapped; inside a
+  // flow map or list it cannot be told from what follows it.
+  const end = text.indexOf("\n", offset);
+  const value = text.slice(start + m.index + m[0].length - 1, end < 0 ? text.length : end).trim();
+  const inFlow = /[{[]/.test(before.slice(0, m.index));
+  return { offset, message: inFlow ? advice : `${advice} (${other}${value}${other})` };
 }
