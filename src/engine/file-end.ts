@@ -162,7 +162,7 @@ export function createFileEnd(plan: Plan, out: Collector) {
         const stat = (x: number) => shownValue(formatValue(x), sensitive);
         const expected = found.fence
           ? `between ${stat(found.fence.low)} and ${stat(found.fence.high)} (Tukey fences, k = ${o.k})`
-          : `modified z-score at most ${o.threshold} (median ${stat(found.median ?? 0)})`;
+          : `modified z-score at most ${o.threshold} (median ${stat(found.median ?? 0)}, scaled by ${found.basis === "mean-ad" ? "the mean absolute deviation, as the MAD is 0" : "the MAD"})`;
         for (const hit of found.outliers) {
           if (!out.fail(o.check, hit.row)) continue;
           const shown = shownValue(formatValue(hit.value), sensitive);

@@ -1,6 +1,7 @@
 import { describe, expect, it } from "vitest";
 import { median as ssMedian, medianAbsoluteDeviation as ssMad } from "simple-statistics";
 import { createFloatColumn, findOutliers, madScores, MEAN_AD_CONSTANT } from "../../src/stats/index.js";
+import { checkJson } from "../helpers/cli.js";
 
 const f64 = (xs: number[]): Float64Array => Float64Array.from(xs);
 const column = (xs: number[]) => {
@@ -138,5 +139,17 @@ describe("modified z-scores of a decimal column are compared exactly", () => {
     expect(findOutliers(column(values), { method: "mad", threshold: 2.0235 }).count).toBe(0);
     const report = findOutliers(column(values), { method: "mad", threshold: 2.0234 });
     expect(report.outliers.map((o) => o.value)).toEqual([1.3, 0.7]);
+  });
+});
+
+describe("the scale a MAD finding was judged on", () => {
+  // README "Outliers": when more than half the values are equal the MAD is 0 and the mean absolute
+  // deviation scales the score instead; the finding's `expected` says which.
+  it("is named in the finding", async () => {
+    const contract = "tablegate: 1\nname: m\ncolumns:\n  x: { type: decimal }\noutliers:\n  - { column: x, method: mad }\n";
+    const zeros = await checkJson(contract, `x\n${"0\n".repeat(9)}100\n`);
+    const spread = await checkJson(contract, "x\n2\n4\n4\n5\n6\n7\n8\n30\n");
+    expect(zeros.report.findings.map((f) => [f.row, /mean absolute deviation/.test(f.expected ?? "")])).toEqual([[10, true]]);
+    expect(spread.report.findings.map((f) => [f.row, /mean absolute deviation/.test(f.expected ?? ""), /the MAD\b/.test(f.expected ?? "")])).toEqual([[8, false, true]]);
   });
 });
