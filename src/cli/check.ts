@@ -128,7 +128,10 @@ async function planJobs(root: string, config: ProjectConfig, files: string[], co
   let candidates = files;
   if (candidates.length === 0) {
     if (contract !== undefined) return { ok: false, problems: [{ file: "check", message: `name the delivery files to check against ${contract}` }] };
-    candidates = changed ? [...changed].filter((f) => DATA_FILE.test(f) || contractFor(config, f) !== undefined) : await routedFiles(root, config);
+    // Code lists are reviewed through the registry (`ref lint`), not as deliveries: a changed table is no unclaimed file.
+    const registryFolders = ["reference/", ...config.registries.map((r) => r.spec).filter((s) => s.startsWith("./")).map((s) => `${s.slice(2).replace(/\/+$/, "")}/`)];
+    const inRegistry = (f: string) => registryFolders.some((dir) => f.startsWith(dir));
+    candidates = changed ? [...changed].filter((f) => (DATA_FILE.test(f) && !inRegistry(f)) || contractFor(config, f) !== undefined) : await routedFiles(root, config);
   }
   if (changed) candidates = candidates.filter((f) => changed.has(f));
   if (contract !== undefined) return { ok: true, value: { jobs: candidates.map((file) => ({ file, contract })), unclaimed: [] } };

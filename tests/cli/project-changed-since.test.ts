@@ -125,6 +125,16 @@ describe("--changed-since in a git repository", () => {
     expect((await cli(dir, ["check", "--changed-since", a, "--require-contract"])).code).toBe(1);
   });
 
+  it("a changed code list in a registry folder is no unclaimed delivery, even with --require-contract", async () => {
+    const registry = "tables:\n  ship-methods:\n    file: ship-methods.csv\n    key: code\n    version: \"1\"\n";
+    const { dir, base: a } = await gitRepo({ ...base, "reference/registry.yaml": registry, "reference/ship-methods.csv": "code\nGROUND\n", "shared/lists/registry.yaml": registry.replace("ship-methods", "carriers").replace("ship-methods.csv", "carriers.csv"), "shared/lists/carriers.csv": "code\nA\n", "tablegate.yaml": `${project}registries:\n  - ./shared/lists\n` });
+    git(dir, "add", "-A");
+    await commit(dir, { "reference/ship-methods.csv": "code\nGROUND\nAIR\n", "shared/lists/carriers.csv": "code\nA\nB\n" }, "two code lists grow");
+    const o = await cli(dir, ["check", "--changed-since", a, "--require-contract", "--report", "json=-"]);
+    expect(o.code).toBe(0);
+    expect(parsed(o).unclaimed).toEqual([]);
+  });
+
   it("a clean change passes (0); --require-contract fails it only when a data file is unclaimed", async () => {
     const { dir, base: a } = await gitRepo(base);
     await commit(dir, { "deliveries/sales/w02.csv": "sku,qty\nSTOVE-1,1\nSTOVE-2,5\n", "README.md": "# Deliveries!\n" }, "week 2 extended");
