@@ -37,7 +37,8 @@ const MAX_ALIAS_COUNT = 100;
  */
 export function yamlData(src: YamlSource): Result<unknown> {
   try {
-    return { ok: true, value: src.doc.toJS({ maxAliasCount: MAX_ALIAS_COUNT }) };
+    // The library refuses a count equal to its limit; one more lets exactly MAX_ALIAS_COUNT through.
+    return { ok: true, value: src.doc.toJS({ maxAliasCount: MAX_ALIAS_COUNT + 1 }) };
   } catch (e) {
     let alias: Alias | undefined;
     let unresolved: Alias | undefined;

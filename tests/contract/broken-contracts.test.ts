@@ -324,6 +324,15 @@ describe("broken contracts", () => {
     expect(r.stderr).toMatch(/^tablegate: contract\.yaml:5:\d+: /);
   });
 
+  it("up to 100 alias expansions are read; the 101st is refused at its place", async () => {
+    const many = (n: number) => head + "columns:\n  c: &t { type: text }\n" + Array.from({ length: n }, (_, i) => `  c${i}: *t\n`).join("");
+    const hundred = await runCli(["lint", "contract.yaml"], { "contract.yaml": many(100) });
+    expect({ code: hundred.code, stderr: hundred.stderr }).toEqual({ code: 0, stderr: "" });
+    const more = await runCli(["lint", "contract.yaml"], { "contract.yaml": many(101) });
+    expect(more.code).toBe(2);
+    expect(more.stderr).toMatch(/^tablegate: contract\.yaml:\d+:\d+: /);
+  });
+
   it("YAML merge keys (<<: *anchor) share column options", async () => {
     const r = await runCli(["check", "data.csv", "--contract", "contract.yaml", "--report", "json=-"], {
       "contract.yaml": head + "columns:\n  a: &code { type: text, max_length: 2 }\n  b: { <<: *code, required: true }\n",
