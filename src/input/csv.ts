@@ -159,15 +159,16 @@ function parseBreak(err: unknown, line: number): StructureBreak {
   if (err === TOO_LONG) return { line, message: `the record starting at line ${line} is longer than ${MAX_RECORD_SIZE / 1024 / 1024} MiB (a quote that never closes?)` };
   const field = err instanceof CsvError && typeof err.column === "number" ? { column: err.column + 1 } : {};
   const code = err instanceof CsvError ? err.code : undefined;
+  const place = `${field.column === undefined ? "" : `field ${field.column} of `}the record starting at line ${line}`;
   switch (code) {
     case "CSV_QUOTE_NOT_CLOSED":
       return { line, message: `unterminated quoted field in the record starting at line ${line}` };
     case "CSV_INVALID_CLOSING_QUOTE":
-      return { line, ...field, message: `a closing quote is followed by text in the record starting at line ${line}` };
+      return { line, ...field, message: `a closing quote is followed by text in ${place}` };
     case "INVALID_OPENING_QUOTE":
-      return { line, ...field, message: `a quote inside an unquoted field in the record starting at line ${line}` };
+      return { line, ...field, message: field.column === undefined ? `a quote inside an unquoted field in ${place}` : `a quote inside unquoted ${place}` };
     default:
-      return { line, ...field, message: `the record starting at line ${line} cannot be parsed: ${err instanceof Error ? err.message : String(err)}` };
+      return { line, ...field, message: `${place} cannot be parsed: ${err instanceof Error ? err.message : String(err)}` };
   }
 }
 

@@ -43,6 +43,8 @@ describe("structure breaks", () => {
     const read = await readBytes('a,b,c\n1,2,3\n4,"5"x,6\n7,8,9\n');
     expect(read.rows).toEqual([["a", "b", "c"], ["1", "2", "3"]]);
     expect(read.stop).toMatchObject({ line: 3, column: 2 });
+    // The field is named in the words of the finding too, where a reader of the report sees it.
+    expect(read.stop?.message).toContain("field 2");
   });
 
   it("a quote inside an unquoted field stops reading (RFC 4180 section 2 rule 5)", async () => {
