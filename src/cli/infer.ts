@@ -41,7 +41,7 @@ export async function infer(argv: readonly string[], io: Io): Promise<number> {
   const shown = reportPath(root, path);
   const linked = await linkOutReason(root, path);
   if (linked !== undefined) return unusable(io, [{ file: shown, message: `delivery ${linked}` }]);
-  const inferred = await inferContract(path, { format, name, file: shown, schema: schemaLink(io.cwd) });
+  const inferred = await inferContract(path, { format, name, file: shown, schema: schemaLink(root) });
   if (!inferred.ok) return unusable(io, inferred.problems.map((p) => ({ ...p, file: p.file === path ? shown : p.file })));
 
   // A draft that the checker refuses would be a bug here; say so instead of printing it.
@@ -53,8 +53,13 @@ export async function infer(argv: readonly string[], io: Io): Promise<number> {
 }
 
 /** The shipped contract schema, relative to the working folder when inside it, else absolute. */
-function schemaLink(cwd: string): string {
+/**
+ * The schema as a contract in `<root>/contracts/` (SPEC §1's place for contracts) reaches it, since
+ * editors resolve `$schema` from the file; absolute when the schema lies outside the repository.
+ */
+function schemaLink(root: string): string {
   const abs = schemaPath("contract.schema.json");
-  const rel = relative(cwd, abs);
-  return (rel.startsWith("..") || isAbsolute(rel) ? abs : rel).split(sep).join("/");
+  const fromRoot = relative(root, abs);
+  const inside = !fromRoot.startsWith("..") && !isAbsolute(fromRoot);
+  return (inside ? relative(join(root, "contracts"), abs) : abs).split(sep).join("/");
 }

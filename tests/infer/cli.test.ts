@@ -1,10 +1,12 @@
 /** `tablegate infer` on the command line: arguments, exit statuses, formats, encodings, the draft's head. */
 import { existsSync } from "node:fs";
-import { isAbsolute } from "node:path";
+import { isAbsolute, join } from "node:path";
+import { fileURLToPath } from "node:url";
 import { gzipSync } from "node:zlib";
 import { describe, expect, it } from "vitest";
 import { nameFromFile } from "../../src/infer/index.js";
 import { runCli, type CliRun } from "../helpers/cli.js";
+import { tablegate } from "../registry/helpers.js";
 import { column, inferFile, roundTrip } from "./helpers.js";
 
 const lines = (r: CliRun) => r.stderr.split("\n").filter((l) => l.trim() !== "");
@@ -42,6 +44,14 @@ describe("the draft's head", () => {
     const path = m?.[1] ?? "";
     // the test project folder is outside the repository, so the path is absolute here
     expect(isAbsolute(path) && existsSync(path) && path.endsWith("contract.schema.json")).toBe(true);
+  });
+
+  it("inside the repository, the path leads from its contracts/ folder to the schema", async () => {
+    const root = fileURLToPath(new URL("../../", import.meta.url));
+    const r = await tablegate(root, "infer", "contracts/samples/dealer-sales-w47.csv");
+    const path = /^# yaml-language-server: \$schema=(.+)$/m.exec(r.out)?.[1] ?? "";
+    expect(isAbsolute(path)).toBe(false);
+    expect(existsSync(join(root, "contracts", path))).toBe(true);
   });
 
   it("takes --name, else the file name made into [a-z0-9-]+", async () => {
