@@ -21,7 +21,13 @@ export function parseYamlSource(file: string, text: string): YamlSource {
   const first = doc.errors[0];
   const syntaxProblems: Problem[] = [];
   if (first !== undefined) {
-    const hint = explainSyntaxError(text, doc, lines, first);
+    // The wording is a best effort over a broken document; if it trips, the library's own words stand.
+    let hint: { offset: number; message: string };
+    try {
+      hint = explainSyntaxError(text, doc, lines, first);
+    } catch {
+      hint = { offset: first.pos[0], message: first.message.split("\n", 1)[0] ?? first.message };
+    }
     const pos = lines.linePos(hint.offset);
     syntaxProblems.push({ file, line: pos.line, column: pos.col, message: hint.message });
   }
