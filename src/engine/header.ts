@@ -1,4 +1,5 @@
 import { nearMissAmong, said } from "../contract/near-miss.js";
+import { mask } from "../report/mask.js";
 import type { Plan } from "../contract/plan.js";
 import type { Finding } from "../report/model.js";
 
@@ -12,7 +13,12 @@ export interface HeaderMatch {
   readonly positions: Int32Array;
   readonly width: number;
   readonly findings: readonly HeaderFinding[];
+  /** Failures past MAX_HEADER_FINDINGS, by check: counted, never built (a header can have millions of cells). */
+  readonly more?: ReadonlyMap<number, number>;
 }
+
+/** How many header findings are built; the rest are only counted. */
+const MAX_HEADER_FINDINGS = 1000;
 
 /** Declared columns taken positionally, for `header: none`. */
 export function positional(plan: Plan): HeaderMatch {
@@ -36,12 +42,23 @@ export function matchHeader(plan: Plan, cells: readonly string[], line: number):
     const meta = plan.checks[check];
     findings.push({ check, finding: { rule: meta?.rule ?? "", level: meta?.level ?? "error", line, ...finding } });
   };
+  // A delivery sent without its header row has data where the names should be: a cell in the place
+  // of a sensitive column is shown masked, as that column's cells always are, and never suggested.
+  const secret = (i: number): boolean => plan.columns[i]?.sensitive === true;
+  const shown = (name: string, i: number): string => (secret(i) ? mask(name) : name);
+  let kept = 0;
+  const keep = (check: number, finding: Omit<Finding, "rule" | "level" | "line">) => {
+    if (++kept <= MAX_HEADER_FINDINGS) at(check, finding);
+    else more.set(check, (more.get(check) ?? 0) + 1);
+  };
+  const more = new Map<number, number>();
   names.forEach((name, i) => {
-    if (byName.has(name)) at(plan.file.headerDuplicate, { column: name, value: name, expected: "each column named once", message: `header names ${JSON.stringify(name)} twice (cells ${(byName.get(name) ?? 0) + 1} and ${i + 1})` });
+    if (byName.has(name)) keep(plan.file.headerDuplicate, { column: shown(name, i), value: shown(name, i), expected: "each column named once", message: `header names ${JSON.stringify(shown(name, i))} twice (cells ${(byName.get(name) ?? 0) + 1} and ${i + 1})` });
     else byName.set(name, i);
   });
   const declared = new Set(plan.columns.map((c) => c.name));
-  const extras = names.filter((n, i) => !declared.has(n) && byName.get(n) === i);
+  const extraAt = names.map((n, i) => i).filter((i) => !declared.has(names[i] as string) && byName.get(names[i] as string) === i);
+  const extras = extraAt.filter((i) => !secret(i)).map((i) => names[i] as string);
   const missing = plan.columns.filter((c) => !byName.has(c.name)).map((c) => c.name);
   // A header far from its contract (thousands of names) gets no suggestions: they would be guesses,
   // and pairing every name with every other costs too much.
@@ -53,8 +70,9 @@ export function matchHeader(plan: Plan, cells: readonly string[], line: number):
     if (pos !== undefined) positions[col.index] = pos;
     else at(plan.file.headerMissing, { column: col.name, expected: col.name, message: `header has no column ${col.name}${said(nearExtra(col.name))}` });
   }
-  for (const name of extras) {
-    at(plan.file.headerUnexpected, { column: name, value: name, expected: "a declared column", message: `header has undeclared column ${JSON.stringify(name)}${said(nearMissing(name))}` });
+  for (const i of extraAt) {
+    const name = shown(names[i] as string, i);
+    keep(plan.file.headerUnexpected, { column: name, value: name, expected: "a declared column", message: `header has undeclared column ${JSON.stringify(name)}${secret(i) ? "" : said(nearMissing(name))}` });
   }
   // Order concerns the declared columns that are present, relative to each other: a missing, extra
   // or repeated name is its own finding and does not make the others "out of order".
@@ -66,5 +84,5 @@ export function matchHeader(plan: Plan, cells: readonly string[], line: number):
       at(plan.file.headerOrder, { value: found.join(","), expected: present.map((c) => c.name).join(","), message: `header lists the columns out of order: ${found.join(", ")}; expected ${present.map((c) => c.name).join(", ")}` });
     }
   }
-  return { positions, width: cells.length, findings };
+  return { positions, width: cells.length, findings, ...(more.size > 0 ? { more } : {}) };
 }

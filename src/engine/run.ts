@@ -242,6 +242,7 @@ export async function runPlan(plan: Plan, batches: AsyncIterable<readonly RawRec
       if (header === undefined) {
         header = matchHeader(plan, rec.cells, rec.line);
         for (const hf of header.findings) if (out.fail(hf.check, 0)) out.keep(hf.check, hf.finding);
+        for (const [check, n] of header.more ?? []) for (let k = 0; k < n; k++) out.fail(check, 0);
         continue;
       }
       checkRecord(rec, header);

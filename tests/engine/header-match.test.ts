@@ -8,6 +8,7 @@ import { compileContract } from "../../src/contract/load.js";
 import type { Plan } from "../../src/contract/plan.js";
 import type { HeaderPolicy } from "../../src/contract/types.js";
 import { matchHeader, positional } from "../../src/engine/header.js";
+import { checkJson } from "../helpers/cli.js";
 
 const registry = { table: () => undefined, tables: () => [] };
 
@@ -141,5 +142,26 @@ describe("finding check indexes point at the plan's header checks", () => {
     const m = matchHeader(plan, ["sku", "sku", "colour"], 1);
     expect(m.findings.length).toBeGreaterThan(0);
     for (const f of m.findings) expect(plan.checks[f.check]?.rule).toBe(f.finding.rule);
+  });
+});
+
+describe("a header that is really data", () => {
+  // SPEC §1.1 `sensitive`: never print the raw value. A delivery sent without its header row puts its
+  // first record's cells where the names should be; the cell in a sensitive column's place is masked.
+  it("masks the cell in a sensitive column's place in every header finding", async () => {
+    const contract = "tablegate: 1\nname: staff\ncolumns:\n  id: { type: integer }\n  email: { type: text, sensitive: true }\n";
+    const r = await checkJson(contract, "7,jane.doe@example.org\n8,sam.roe@example.org\n");
+    expect(r.code).toBe(1);
+    expect(r.report.findings.some((f) => f.rule === "header.unexpected")).toBe(true);
+    expect(r.stdout).not.toContain("jane.doe");
+  });
+
+  it("a header of thousands of cells is counted exactly, its findings built only up to a limit", async () => {
+    const contract = "tablegate: 1\nname: wide\ncolumns:\n  a: { type: text }\n";
+    const r = await checkJson(contract, `a${",".repeat(3000)}\n1\n`, ["--max-findings", "5000"]);
+    const failed = (rule: string) => r.report.checks.find((c) => c.rule === rule)?.failed;
+    // 3,001 cells: "a" and 3,000 empty names, the first empty one undeclared, the other 2,999 repeats.
+    expect({ duplicate: failed("header.duplicate"), unexpected: failed("header.unexpected") }).toEqual({ duplicate: 2999, unexpected: 1 });
+    expect(r.report.findings.filter((f) => f.rule.startsWith("header.")).length).toBeLessThanOrEqual(1000);
   });
 });
