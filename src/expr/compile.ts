@@ -14,6 +14,7 @@ import { compileLike } from "./like.js";
 import { KEYWORDS } from "./lexer.js";
 import { and, between, comparison, membership, not, or, searchedCase, simpleCase, type Against } from "./predicates.js";
 import { parse } from "./parser.js";
+import { MAX_RECORD_SIZE } from "../input/types.js";
 import { compileSafeRegex } from "../safe-regex.js";
 import { nearest } from "./suggest.js";
 import type { AggregateCall, CompileResult, CompiledExpr, Eval, ExprEnv, ExprType } from "./types.js";
@@ -399,7 +400,9 @@ function makeCompiler(source: string, env: ExprEnv) {
       const a = valueToText(l(r));
       if (a === null) return null;
       const b = valueToText(rt(r));
-      return b === null ? null : a + b;
+      // Text built past the longest record a delivery may hold is NULL (unknown), not a string that
+      // grows with every `||` until memory runs out.
+      return b === null || a.length + b.length > MAX_RECORD_SIZE ? null : a + b;
     }, [left, right]);
   }
 

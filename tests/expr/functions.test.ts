@@ -197,3 +197,16 @@ describe("implicit casts of text (as SQL casts a literal to the other side's typ
     expect(errorOffset("ok = 1", env)).toBe(3);
   });
 });
+
+describe("|| past the longest record", () => {
+  // README "Choices": text that || would build past MAX_RECORD_SIZE is NULL, so a rule cannot grow
+  // one string until the run runs out of memory.
+  test("is NULL; shorter text joins as usual", () => {
+    const env = envOf({ s: "text" });
+    const e = compiled("(s || s || s) IS NULL", env);
+    expect(e.evaluate(["ab"])).toBe(false);
+    expect(compiled("s || s || s = 'ababab'", env).evaluate(["ab"])).toBe(true);
+    const big = "x".repeat(6 * 1024 * 1024);
+    expect(e.evaluate([big])).toBe(true);
+  });
+});
