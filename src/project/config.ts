@@ -2,7 +2,7 @@ import { readFile } from "node:fs/promises";
 import { join } from "node:path";
 import { schemaProblems } from "../contract/schema-errors.js";
 import { problemAt, parseYamlSource, yamlData } from "../contract/yaml-source.js";
-import { staysInside } from "./inside.js";
+import { linkOutReason, staysInside } from "./inside.js";
 import type { Problem, Result } from "../problem.js";
 import { schemaValidator } from "../schema/validator.js";
 import { globToRegExp } from "./glob.js";
@@ -25,6 +25,8 @@ export interface ProjectConfig {
 
 /** Read `tablegate.yaml` at the root; absent means no routes and no further registries. */
 export async function loadProjectConfig(root: string): Promise<Result<ProjectConfig>> {
+  const linked = await linkOutReason(root, PROJECT_FILE);
+  if (linked !== undefined) return { ok: false, problems: [{ file: PROJECT_FILE, message: `${PROJECT_FILE} ${linked}` }] };
   let text: string;
   try {
     text = await readFile(join(root, PROJECT_FILE), "utf8");

@@ -5,6 +5,7 @@ import { builtInTables } from "./builtins.js";
 import { loadManifestFile } from "./manifest-folder.js";
 import { isInside, repoLabel, resolveInside } from "./paths.js";
 import type { RefTable } from "./ref-table.js";
+import { linkOutReason } from "../project/inside.js";
 
 /** The tables of one run, by name. */
 export interface Registry {
@@ -102,6 +103,11 @@ export async function loadRegistry(repoRoot: string, extraRoots: readonly Regist
   }
   for (const m of manifests) {
     const label = repoLabel(root, m);
+    const linked = await linkOutReason(root, m);
+    if (linked !== undefined) {
+      problems.push({ file: label, message: `registry manifest ${linked}` });
+      continue;
+    }
     const folder = label.slice(0, label.length - "registry.yaml".length);
     const loaded = await loadManifestFile(m, { manifest: label, csv: (f) => `${folder}${f}`, builtIn: false });
     if (!loaded.ok) {

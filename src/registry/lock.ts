@@ -3,6 +3,7 @@ import { writeWholeFile } from "../atomic-file.js";
 import { dirname, join } from "node:path";
 import { fail, ok, type Problem, type Result } from "../problem.js";
 import type { Registry } from "./load.js";
+import { linkOutReason } from "../project/inside.js";
 
 /** The lock file, relative to the repository root. */
 export const LOCK_FILE = "reference/registry.lock.json";
@@ -78,6 +79,8 @@ export function parseLock(text: string): Result<Lock> {
 
 /** Read reference/registry.lock.json; undefined when there is none. */
 export async function readLock(repoRoot: string): Promise<Result<Lock | undefined>> {
+  const linked = await lockLinkedOut(repoRoot);
+  if (linked !== undefined) return fail({ file: LOCK_FILE, message: `lock ${linked}` });
   let text: string;
   try {
     text = await readFile(join(repoRoot, LOCK_FILE), "utf8");
@@ -147,6 +150,8 @@ export async function writeLock(repoRoot: string, registry: Registry): Promise<R
   const lock = computeLock(registry);
   const text = renderLock(lock);
   const path = join(repoRoot, LOCK_FILE);
+  const linked = await lockLinkedOut(repoRoot);
+  if (linked !== undefined) return fail({ file: LOCK_FILE, message: `lock ${linked}` });
   let before: string | undefined;
   try {
     before = await readFile(path, "utf8");
@@ -162,4 +167,9 @@ export async function writeLock(repoRoot: string, registry: Registry): Promise<R
   const written = await writeWholeFile(path, text);
   if (!written.ok) return fail({ file: LOCK_FILE, message: "cannot write the lock" });
   return ok({ lock, changed: true });
+}
+
+/** Why the lock, or the folder it lives in, leads out of the repository through a link; undefined when it does not. */
+async function lockLinkedOut(repoRoot: string): Promise<string | undefined> {
+  return (await linkOutReason(repoRoot, dirname(LOCK_FILE))) ?? (await linkOutReason(repoRoot, LOCK_FILE));
 }

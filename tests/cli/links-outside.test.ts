@@ -3,7 +3,7 @@
  * symbolic link. A path inside the repository that leads outside it is refused (exit 2, one line),
  * so a report never prints the lines of a file outside the repository.
  */
-import { lstatSync, mkdirSync, readFileSync, symlinkSync, writeFileSync } from "node:fs";
+import { existsSync, lstatSync, mkdirSync, readFileSync, symlinkSync, writeFileSync } from "node:fs";
 import { join } from "node:path";
 import { describe, expect, it } from "vitest";
 import { tablegate } from "../registry/helpers.js";
@@ -82,5 +82,32 @@ describe("reports and links", () => {
     expect(readFileSync(secret, "utf8")).toBe("id\nTOP-SECRET-VALUE\n");
     expect(lstatSync(join(root, "report.json")).isSymbolicLink()).toBe(false);
     expect(JSON.parse(readFileSync(join(root, "report.json"), "utf8"))).toMatchObject({ verdict: "pass" });
+  });
+});
+
+describe("project files and links", () => {
+  it("tablegate.yaml, the registry manifest and the lock are not read through links out of the repository", async () => {
+    for (const target of ["tablegate.yaml", "reference/registry.yaml", "reference/registry.lock.json"]) {
+      const { root } = setUp();
+      const base = join(root, "..");
+      mkdirSync(join(root, "reference"), { recursive: true });
+      writeFileSync(join(base, "outside.yaml"), "SECRET-KEY-NAME: 1\n");
+      symlinkSync(join(base, "outside.yaml"), join(root, target));
+      writeFileSync(join(root, "data", "w49.csv"), "id\n1\n");
+      const r = await tablegate(root, "check", "data/w49.csv", "--contract", "contracts/orders.contract.yaml");
+      expect([target, r.code]).toEqual([target, 2]);
+      expect(r.out + r.err).not.toContain("SECRET-KEY-NAME");
+    }
+  });
+
+  it("ref lock does not write into a reference folder that links outside", async () => {
+    const { root } = setUp();
+    const base = join(root, "..");
+    mkdirSync(join(base, "elsewhere"));
+    writeFileSync(join(base, "elsewhere", "registry.yaml"), "tables: {}\n");
+    symlinkSync(join(base, "elsewhere"), join(root, "reference"));
+    const r = await tablegate(root, "ref", "lock");
+    expect(r.code).toBe(2);
+    expect(existsSync(join(base, "elsewhere", "registry.lock.json"))).toBe(false);
   });
 });
