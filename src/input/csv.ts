@@ -1,7 +1,7 @@
 import { Parser, CsvError } from "csv-parse";
 import type { Decoder } from "./decode.js";
 import { countBreaks, crlfInCells } from "./lines.js";
-import { MAX_RECORD_SIZE, type RawRecord, type StructureBreak } from "./types.js";
+import { MAX_CELLS, MAX_RECORD_SIZE, type RawRecord, type StructureBreak } from "./types.js";
 
 /** Field separator and quote character of a CSV or TSV file; `quote` null means fields are never quoted. */
 export interface CsvDialect {
@@ -71,13 +71,20 @@ export async function* readCsv(
   let fed: Fed[] = [];
   let fedBytes = 0;
   let parseError: unknown;
+  let wideAt = 0;
 
   // csv-parse hands each finished record to `push` synchronously, with its counters current.
   parser.push = (record: unknown): boolean => {
-    if (record === null) return false;
+    // Past a stop, csv-parse still finishes the chunk it was given; what follows the stop is not read.
+    if (record === null || parseError !== undefined) return false;
     const cells = record as string[];
     const skipped = info.empty_lines - emptyEnd;
     const line = lineEnd + 1 + skipped;
+    if (cells.length > MAX_CELLS) {
+      parseError = TOO_WIDE;
+      wideAt = line;
+      return false;
+    }
     const span = info.lines - rawEnd - skipped;
     // csv-parse counts a CR LF inside quotes as two lines; correct for it only on multi-line records.
     lineEnd = span > 1 ? line + span - 1 - crlfInCells(cells) : line;
@@ -125,7 +132,7 @@ export async function* readCsv(
       const d = decoder.decode(chunk);
       const ok = feed(d.data);
       if (batch.length > 0) yield take();
-      if (!ok) return stop(parseBreak(parseError, lineEnd + 1 + info.empty_lines - emptyEnd));
+      if (!ok) return stop(parseBreak(parseError, parseError === TOO_WIDE ? wideAt : lineEnd + 1 + info.empty_lines - emptyEnd));
       if (d.invalid !== undefined) {
         settle();
         if (batch.length > 0) yield take();
@@ -146,7 +153,7 @@ export async function* readCsv(
   }
   if (ok) parser._flush(done);
   if (batch.length > 0) yield take();
-  if (parseError !== undefined) stop(parseBreak(parseError, lineEnd + 1 + info.empty_lines - emptyEnd));
+  if (parseError !== undefined) stop(parseBreak(parseError, parseError === TOO_WIDE ? wideAt : lineEnd + 1 + info.empty_lines - emptyEnd));
 }
 
 const SETTLE = Buffer.alloc(8);
@@ -154,8 +161,11 @@ const SETTLE = Buffer.alloc(8);
 /** A csv-parse error as a break at the line where the failing record starts. */
 /** The stop for a record past MAX_RECORD_SIZE bytes. */
 const TOO_LONG = new Error("record too long");
+/** The stop for a record of more than MAX_CELLS cells. */
+const TOO_WIDE = new Error("record too wide");
 
 function parseBreak(err: unknown, line: number): StructureBreak {
+  if (err === TOO_WIDE) return { line, message: `the record starting at line ${line} has more than ${MAX_CELLS.toLocaleString("en-US")} cells` };
   if (err === TOO_LONG) return { line, message: `the record starting at line ${line} is longer than ${MAX_RECORD_SIZE / 1024 / 1024} MiB (a quote that never closes?)` };
   const field = err instanceof CsvError && typeof err.column === "number" ? { column: err.column + 1 } : {};
   const code = err instanceof CsvError ? err.code : undefined;

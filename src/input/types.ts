@@ -18,6 +18,9 @@ export interface InputOptions {
  */
 export const MAX_RECORD_SIZE = 16 * 1024 * 1024;
 
+/** The most cells a record may have: far past any spreadsheet's columns (16,384), and a bound on the memory one record takes. */
+export const MAX_CELLS = 100_000;
+
 /** One record as read: its cells untouched (no trimming) and the 1-based physical line where it starts. */
 export interface RawRecord {
   readonly cells: readonly string[];

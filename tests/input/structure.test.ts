@@ -3,7 +3,7 @@
 import { mkdirSync } from "node:fs";
 import { describe, expect, it } from "vitest";
 import { openDelivery } from "../../src/input/index.js";
-import { MAX_RECORD_SIZE } from "../../src/input/types.js";
+import { MAX_CELLS, MAX_RECORD_SIZE } from "../../src/input/types.js";
 import { CSV, readBytes, readChunked, tempFile } from "./helpers.js";
 
 describe("structure breaks", () => {
@@ -23,6 +23,13 @@ describe("structure breaks", () => {
     const text = `id,note\n1,a\n2,"never closed\n${"x,y\n".repeat(MAX_RECORD_SIZE / 4 + 10)}`;
     const read = await readBytes(text);
     expect(read.rows).toEqual([["id", "note"], ["1", "a"]]);
+    expect(read.stop?.line).toBe(3);
+  });
+
+  it("a record of more than MAX_CELLS cells stops at its line; nothing after it is read", async () => {
+    const text = `a,b\n1,2\n${",".repeat(MAX_CELLS)}\n3,4\n`;
+    const read = await readBytes(text);
+    expect(read.rows).toEqual([["a", "b"], ["1", "2"]]);
     expect(read.stop?.line).toBe(3);
   });
 
