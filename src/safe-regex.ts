@@ -22,12 +22,17 @@ export function compileSafeRegex(source: string): RegExp | { offset: number; mes
   const property = escapeAt(source, /[pP]/);
   if (property !== undefined) return { offset: property, message: "Unicode property escapes (\\p{...}) are not supported; use a character class" };
   if (linear(source)) return re;
-  // The linear engine also refuses counted repeats above 16 ({1,20}); those alone are harmless unless
-  // a repeated group nests another repeat, which is what makes backtracking explode.
+  // The linear engine also refuses counted repeats above 16 ({1,20}), so such a pattern runs on the
+  // backtracking engine with nothing to stop it. It is safe when its backtracking is bounded by its
+  // counts: no repeat whose count can vary ({n} cannot), or exactly one, anchored at the start (one
+  // starting place) and with no alternation: `^[A-Z0-9]{1,20}$`, `^.{0,255}$`, `^[A-Z]{2}[0-9]{2}[A-Z0-9]{11,30}$`.
+  // Two that can vary side by side (`a{0,3000}a{0,3000}b`) backtrack as the product of their counts.
   if (linear(source.replace(/\{(\d+)(,(\d*))?\}/g, (_m, a: string, comma?: string, b?: string) => `{${Math.min(Number(a), 16)}${comma ? `,${b === "" ? "" : Math.min(Number(b), 16)}` : ""}}`))) {
     const nested = nestedRepeat(source);
-    if (nested === undefined) return re;
-    return { offset: nested, message: "a repeated group must not contain another repeat when counts above 16 are used (e.g. \"(a{1,20})+\"): it can take exponential time" };
+    if (nested !== undefined) return { offset: nested, message: "a repeated group must not contain another repeat when counts above 16 are used (e.g. \"(a{1,20})+\"): it can take exponential time" };
+    const shape = repeatShape(source);
+    if (shape.varying === 0 || (source.startsWith("^") && !shape.alternation && shape.varying === 1)) return re;
+    return { offset: 0, message: "a pattern with a count above 16 may have only one repeat whose count can vary, and then must start with ^ and have no |; otherwise it can take time that grows with the product of its counts (for a length limit use min_length and max_length)" };
   }
   return { offset: 0, message: "this pattern cannot run in bounded time: backreferences, lookarounds and large counted repeats of repeated groups are not allowed" };
 }
@@ -85,4 +90,35 @@ function nestedRepeat(source: string): number | undefined {
     }
   }
   return undefined;
+}
+
+/** Outside classes and escapes: how many repeats can match a varying count (`*`, `+`, `?`, `{m,n}` with m < n), and whether `|` appears. */
+function repeatShape(source: string): { varying: number; alternation: boolean } {
+  let varying = 0;
+  let alternation = false;
+  let inClass = false;
+  for (let i = 0; i < source.length; i++) {
+    const c = source[i];
+    if (c === "\\") {
+      i++;
+      continue;
+    }
+    if (inClass) {
+      if (c === "]") inClass = false;
+      continue;
+    }
+    if (c === "[") inClass = true;
+    else if (c === "|") alternation = true;
+    else if (c === "(" && source[i + 1] === "?") i++; // a group's `?:`, `?=`, `?<name>` is no repeat
+    else if (c === "*" || c === "+") varying++;
+    else if (c === "?") {
+      // a `?` right after another repeat makes it lazy; it is not a repeat of its own
+      const before = source[i - 1];
+      if (before !== "*" && before !== "+" && before !== "?" && before !== "}") varying++;
+    } else if (c === "{") {
+      const m = /^\{(\d+)(,(\d*))?\}/.exec(source.slice(i));
+      if (m && m[2] !== undefined && (m[3] === "" || Number(m[3]) !== Number(m[1]))) varying++;
+    }
+  }
+  return { varying, alternation };
 }

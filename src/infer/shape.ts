@@ -1,3 +1,5 @@
+import { compileSafeRegex } from "../safe-regex.js";
+
 /** Character classes of a word, as bits. */
 const UPPER = 1;
 const LOWER = 2;
@@ -85,7 +87,9 @@ export function createShapeTracker(): ShapeTracker {
         else if (constants && t.word.constant !== undefined) source += t.word.constant;
         else source += `[${CLASS_TEXT[t.word.classes]}]${t.word.min === t.word.max ? (t.word.min === 1 ? "" : `{${t.word.min}}`) : `{${t.word.min},${t.word.max}}`}`;
       }
-      return source + "$";
+      // A draft must compile: a shape the pattern screen would refuse (long varying runs side by side) is left out.
+      const full = `${source}$`;
+      return compileSafeRegex(full) instanceof RegExp ? full : undefined;
     },
   };
 }
