@@ -61,22 +61,35 @@ function isRepeat(source: string, i: number): boolean {
   return c === "*" || c === "+" || (c === "{" && /^\{\d+(,\d*)?\}/.test(source.slice(i)));
 }
 
+/**
+ * The characters of a pattern that are syntax (outside character classes, not escaped), each with the
+ * syntax character right before it (undefined when an escape or a class came between).
+ */
+function* syntax(source: string): Generator<{ c: string; i: number; prev: string | undefined }> {
+  let inClass = false;
+  let prev: string | undefined;
+  for (let i = 0; i < source.length; i++) {
+    const c = source[i] as string;
+    if (c === "\\") {
+      i++;
+      prev = undefined;
+    } else if (inClass) {
+      if (c === "]") inClass = false;
+    } else if (c === "[") {
+      inClass = true;
+      prev = undefined;
+    } else {
+      yield { c, i, prev };
+      prev = c;
+    }
+  }
+}
+
 /** Offset of a group that repeats and holds a repeat or an alternation inside, if any. */
 function nestedRepeat(source: string): number | undefined {
   const stack: { start: number; risky: boolean }[] = [];
-  let inClass = false;
-  for (let i = 0; i < source.length; i++) {
-    const c = source[i];
-    if (c === "\\") {
-      i++;
-      continue;
-    }
-    if (inClass) {
-      if (c === "]") inClass = false;
-      continue;
-    }
-    if (c === "[") inClass = true;
-    else if (c === "(") stack.push({ start: i, risky: false });
+  for (const { c, i } of syntax(source)) {
+    if (c === "(") stack.push({ start: i, risky: false });
     else if (c === ")") {
       const group = stack.pop();
       if (!group) continue;
@@ -92,30 +105,16 @@ function nestedRepeat(source: string): number | undefined {
   return undefined;
 }
 
-/** Outside classes and escapes: how many repeats can match a varying count (`*`, `+`, `?`, `{m,n}` with m < n), and whether `|` appears. */
+/** How many repeats can match a varying count (`*`, `+`, `?`, `{m,n}` with m < n), and whether `|` appears. */
 function repeatShape(source: string): { varying: number; alternation: boolean } {
   let varying = 0;
   let alternation = false;
-  let inClass = false;
-  for (let i = 0; i < source.length; i++) {
-    const c = source[i];
-    if (c === "\\") {
-      i++;
-      continue;
-    }
-    if (inClass) {
-      if (c === "]") inClass = false;
-      continue;
-    }
-    if (c === "[") inClass = true;
-    else if (c === "|") alternation = true;
-    else if (c === "(" && source[i + 1] === "?") i++; // a group's `?:`, `?=`, `?<name>` is no repeat
+  for (const { c, i, prev } of syntax(source)) {
+    if (c === "|") alternation = true;
     else if (c === "*" || c === "+") varying++;
-    else if (c === "?") {
-      // a `?` right after another repeat makes it lazy; it is not a repeat of its own
-      const before = source[i - 1];
-      if (before !== "*" && before !== "+" && before !== "?" && before !== "}") varying++;
-    } else if (c === "{") {
+    // `?` opening a group (`(?:`, `(?=`, `(?<name>`) or right after a repeat (lazy) is no repeat of its own
+    else if (c === "?" && prev !== "(" && prev !== "*" && prev !== "+" && prev !== "?" && prev !== "}") varying++;
+    else if (c === "{") {
       const m = /^\{(\d+)(,(\d*))?\}/.exec(source.slice(i));
       if (m && m[2] !== undefined && (m[3] === "" || Number(m[3]) !== Number(m[1]))) varying++;
     }
