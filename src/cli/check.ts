@@ -1,6 +1,5 @@
 import { isAbsolute, join, resolve } from "node:path";
 import { stat } from "node:fs/promises";
-import { parseArgs } from "node:util";
 import { checkFile } from "../check.js";
 import { loadContract } from "../contract/load.js";
 import type { Plan } from "../contract/plan.js";
@@ -11,7 +10,7 @@ import { linkOutReason } from "../project/inside.js";
 import type { DeliveryReport, Level } from "../report/model.js";
 import { loadRegistry, verifyLock, type Registry } from "../registry/index.js";
 import { EXIT, type Io } from "./io.js";
-import { badArgument, showUsage, unusable } from "./problems.js";
+import { badArgument, commandArgs, showUsage, unusable } from "./problems.js";
 import { createProgress } from "./progress.js";
 import { parseReportTargets, writeReports } from "./reports.js";
 import { findRoot, reportPath } from "./root.js";
@@ -41,12 +40,8 @@ interface Job {
  * globs match) to its contract.
  */
 export async function check(argv: readonly string[], io: Io): Promise<number> {
-  let parsed;
-  try {
-    parsed = parseArgs({ args: [...argv], allowPositionals: true, options: OPTIONS });
-  } catch (e) {
-    return badArgument(io, "check", (e as Error).message);
-  }
+  const parsed = commandArgs(io, "check", argv, OPTIONS);
+  if (typeof parsed === "number") return parsed;
   const { values, positionals } = parsed;
   if (values.help === true) return showUsage(io, CHECK_USAGE);
   const maxFindings = values["max-findings"] === undefined ? 1000 : Number(values["max-findings"]);

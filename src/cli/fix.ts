@@ -1,5 +1,4 @@
 import { isAbsolute, join } from "node:path";
-import { parseArgs } from "node:util";
 import { fixFile } from "../fix/fix-file.js";
 import { fixSummary } from "../fix/summary.js";
 import { checkTargets, type FixTargets } from "../fix/targets.js";
@@ -8,7 +7,7 @@ import { loadRegistry } from "../registry/index.js";
 import { linkOutReason } from "../project/inside.js";
 import { loadPlan } from "./check.js";
 import { EXIT, type Io } from "./io.js";
-import { badArgument, showUsage, unusable } from "./problems.js";
+import { badArgument, commandArgs, showUsage, unusable } from "./problems.js";
 import { findRoot, reportPath } from "./root.js";
 
 export const FIX_USAGE = "tablegate fix <file> --contract <c> --out <clean> --rejects <rejects> --log <changes.ndjson>";
@@ -27,12 +26,8 @@ const OPTIONS = {
  * was rejected or the clean file still fails a whole-file check, 2 it could not run.
  */
 export async function fix(argv: readonly string[], io: Io): Promise<number> {
-  let parsed;
-  try {
-    parsed = parseArgs({ args: [...argv], allowPositionals: true, options: OPTIONS });
-  } catch (e) {
-    return badArgument(io, "fix", (e as Error).message);
-  }
+  const parsed = commandArgs(io, "fix", argv, OPTIONS);
+  if (typeof parsed === "number") return parsed;
   const { values, positionals } = parsed;
   if (values.help === true) return showUsage(io, FIX_USAGE);
   if (positionals.length !== 1) return badArgument(io, "fix", `fix takes exactly one delivery file, got ${positionals.length}`);

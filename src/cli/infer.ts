@@ -1,11 +1,10 @@
 import { isAbsolute, join, relative, sep } from "node:path";
-import { parseArgs } from "node:util";
 import { compileContract } from "../contract/load.js";
 import { formatFromName, inferContract, nameFromFile } from "../infer/index.js";
 import type { Registry } from "../registry/index.js";
 import { schemaPath } from "../schema/locate.js";
 import { EXIT, type Io } from "./io.js";
-import { badArgument, showUsage, unusable } from "./problems.js";
+import { badArgument, commandArgs, showUsage, unusable } from "./problems.js";
 import { findRoot, reportPath } from "./root.js";
 import { linkOutReason } from "../project/inside.js";
 
@@ -21,12 +20,8 @@ const NO_TABLES: Registry = { table: () => undefined, tables: () => [] };
  * that cannot be read to its end (a draft of part of a file would describe a file that does not exist).
  */
 export async function infer(argv: readonly string[], io: Io): Promise<number> {
-  let parsed;
-  try {
-    parsed = parseArgs({ args: [...argv], allowPositionals: true, options: OPTIONS });
-  } catch (e) {
-    return badArgument(io, "infer", (e as Error).message);
-  }
+  const parsed = commandArgs(io, "infer", argv, OPTIONS);
+  if (typeof parsed === "number") return parsed;
   const { values, positionals } = parsed;
   if (values.help === true) return showUsage(io, INFER_USAGE);
   if (positionals.length !== 1) return badArgument(io, "infer", `infer takes one delivery file, got ${positionals.length}`);

@@ -1,24 +1,19 @@
 import { isAbsolute, join } from "node:path";
-import { parseArgs } from "node:util";
 import { formatProblem } from "../problem.js";
 import { loadProjectConfig } from "../project/config.js";
 import { loadRegistry } from "../registry/index.js";
 import { loadPlan } from "./check.js";
 import { EXIT, type Io } from "./io.js";
-import { badArgument, showUsage, unusable } from "./problems.js";
+import { badArgument, commandArgs, showUsage, unusable } from "./problems.js";
 import { findRoot, reportPath } from "./root.js";
 
 export const LINT_USAGE = "tablegate lint <contract...>";
 
 /** `tablegate lint <contract...>`: check contracts (and the registry they use) without data. */
 export async function lint(argv: readonly string[], io: Io): Promise<number> {
-  let parsed;
-  try {
-    // No options but --help; parsing still tells an unknown option from a contract file name.
-    parsed = parseArgs({ args: [...argv], allowPositionals: true, options: { help: { type: "boolean", short: "h" } } });
-  } catch (e) {
-    return badArgument(io, "lint", (e as Error).message);
-  }
+  // No options but --help; parsing still tells an unknown option from a contract file name.
+  const parsed = commandArgs(io, "lint", argv, { help: { type: "boolean", short: "h" } });
+  if (typeof parsed === "number") return parsed;
   if (parsed.values.help === true) return showUsage(io, LINT_USAGE);
   const files = parsed.positionals;
   if (files.length === 0) return badArgument(io, "lint", "lint needs at least one contract file");

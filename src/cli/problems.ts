@@ -1,3 +1,4 @@
+import { parseArgs, type ParseArgsConfig } from "node:util";
 import { formatProblem, type Problem } from "../problem.js";
 import { EXIT, type Io } from "./io.js";
 
@@ -38,4 +39,15 @@ function plainer(message: string): string {
   const flag = /^Option '(--[\w-]+)' does not take an argument/.exec(message);
   if (flag) return `option ${flag[1]} takes no value`;
   return message;
+}
+
+type Options = NonNullable<ParseArgsConfig["options"]>;
+
+/** A command's arguments read by Node's parser, or, when they are bad, the exit status after one line saying so. */
+export function commandArgs<O extends Options>(io: Pick<Io, "stderr">, command: string, argv: readonly string[], options: O): ReturnType<typeof parseArgs<{ args: string[]; allowPositionals: true; options: O }>> | number {
+  try {
+    return parseArgs({ args: [...argv], allowPositionals: true, options });
+  } catch (e) {
+    return badArgument(io, command, (e as Error).message);
+  }
 }

@@ -1,5 +1,4 @@
 import { isAbsolute, join } from "node:path";
-import { parseArgs } from "node:util";
 import { formatProblem, type Problem } from "../problem.js";
 import {
   compareLock,
@@ -22,7 +21,7 @@ import {
 import { loadProjectConfig, type ProjectConfig } from "../project/config.js";
 import { breaks, tableImpact, type ImpactReport, type RowChange } from "../registry/impact.js";
 import type { Io } from "./io.js";
-import { badArgument, showUsage } from "./problems.js";
+import { badArgument, commandArgs, showUsage } from "./problems.js";
 import { REPO_MANIFEST } from "../registry/index.js";
 import { oneLine } from "../report/one-line.js";
 import { registryLintReports } from "./ref-lint-report.js";
@@ -353,26 +352,18 @@ export async function runRef(args: readonly string[], io: RefIo, options: RefOpt
   if (subName === "--help" || subName === "-h" || subName === "help") return showUsage(io, REF_USAGE);
   const sub = subName === undefined ? undefined : Object.hasOwn(SUBS, subName) ? SUBS[subName] : undefined;
   if (!sub) return bad(io, `${subName === undefined ? "ref needs a subcommand" : `unknown ref subcommand "${subName}"`}; expected one of ${Object.keys(SUBS).join(", ")}`);
-  let parsed;
-  try {
-    parsed = parseArgs({
-      args: [...rest],
-      allowPositionals: true,
-      options: {
-        json: { type: "boolean" },
-        from: { type: "string" },
-        page: { type: "string" },
-        "page-size": { type: "string" },
-        data: { type: "string", multiple: true },
-        contract: { type: "string" },
-        "max-findings": { type: "string" },
-        report: { type: "string", multiple: true },
-        help: { type: "boolean", short: "h" },
-      },
-    });
-  } catch (e) {
-    return bad(io, (e as Error).message);
-  }
+  const parsed = commandArgs(io, "ref", rest, {
+    json: { type: "boolean" },
+    from: { type: "string" },
+    page: { type: "string" },
+    "page-size": { type: "string" },
+    data: { type: "string", multiple: true },
+    contract: { type: "string" },
+    "max-findings": { type: "string" },
+    report: { type: "string", multiple: true },
+    help: { type: "boolean", short: "h" },
+  });
+  if (typeof parsed === "number") return parsed;
   if (parsed.values.help === true) return showUsage(io, REF_USAGE);
   // list, lint and lock name no table: a word after them is a mistake, not something to ignore.
   if (TAKES_NO_TABLE.has(subName as string) && parsed.positionals.length > 0) return bad(io, `ref ${subName} takes no table name, got ${parsed.positionals.map((p) => JSON.stringify(p)).join(", ")}`);

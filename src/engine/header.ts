@@ -47,11 +47,11 @@ export function matchHeader(plan: Plan, cells: readonly string[], line: number):
   const secret = (i: number): boolean => plan.columns[i]?.sensitive === true;
   const shown = (name: string, i: number): string => (secret(i) ? mask(name) : name);
   let kept = 0;
+  const more = new Map<number, number>();
   const keep = (check: number, finding: Omit<Finding, "rule" | "level" | "line">) => {
     if (++kept <= MAX_HEADER_FINDINGS) at(check, finding);
     else more.set(check, (more.get(check) ?? 0) + 1);
   };
-  const more = new Map<number, number>();
   names.forEach((name, i) => {
     if (byName.has(name)) keep(plan.file.headerDuplicate, { column: shown(name, i), value: shown(name, i), expected: "each column named once", message: `header names ${JSON.stringify(shown(name, i))} twice (cells ${(byName.get(name) ?? 0) + 1} and ${i + 1})` });
     else byName.set(name, i);
