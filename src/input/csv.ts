@@ -1,6 +1,8 @@
+import { StringDecoder } from "node:string_decoder";
 import { Parser, CsvError } from "csv-parse";
 import type { Decoder } from "./decode.js";
-import { countBreaks, crlfInCells } from "./lines.js";
+import { breaksIn } from "./lines.js";
+import { INSIDE_QUOTES, recordEnd } from "./quoted-record.js";
 import { MAX_CELLS, MAX_RECORD_SIZE, type RawRecord, type StructureBreak } from "./types.js";
 
 /** Field separator and quote character of a CSV or TSV file; `quote` null means fields are never quoted. */
@@ -9,18 +11,29 @@ export interface CsvDialect {
   readonly quote: string | null;
 }
 
-/** A csv-parse parser for the dialect, or the reason the dialect is unusable (e.g. delimiter equals quote). */
-export function createCsvParser(dialect: CsvDialect): { parser: Parser } | { error: string } {
+/** csv-parse's state machine under its stream: parses `buf`, handing each record to `push`; returns its error. */
+interface CsvParseMachine {
+  parse(buf: Buffer, end: boolean, push: (record: unknown) => void, close: () => void): Error | undefined;
+}
+
+/** What reads one file of a dialect: the dialect itself, and csv-parse for its records that hold quotes. */
+export interface CsvReader {
+  readonly dialect: CsvDialect;
+  readonly machine: CsvParseMachine;
+}
+
+/** A reader for the dialect, or the reason the dialect is unusable (e.g. delimiter equals quote). */
+export function createCsvReader(dialect: CsvDialect): { reader: CsvReader } | { error: string } {
   const { delimiter, quote } = dialect;
   if (delimiter === "" || /[\r\n\0]/.test(delimiter)) return { error: `Invalid option delimiter: expected text without line breaks or NUL, got ${JSON.stringify(delimiter)}` };
   if (quote !== null && (quote.length !== 1 || /[\r\n\0]/.test(quote))) return { error: `Invalid option quote: expected one character other than a line break or NUL, got ${JSON.stringify(quote)}` };
   if (quote !== null && delimiter.includes(quote)) return { error: `Invalid option delimiter: expected no quote character in it, got ${JSON.stringify(delimiter)}` };
   try {
     const parser = new Parser({
-      delimiter: dialect.delimiter,
-      quote: dialect.quote,
+      delimiter,
+      quote,
       // Doubled quotes inside quoted fields, as RFC 4180 section 2 rule 7.
-      escape: dialect.quote,
+      escape: quote,
       // Ragged records are reported by the engine as `row.width`, not refused here.
       relax_column_count: true,
       // An empty physical line is no record (common practice, no source); line numbers still count it.
@@ -30,143 +43,195 @@ export function createCsvParser(dialect: CsvDialect): { parser: Parser } | { err
       // The decoder has removed any byte order mark already.
       bom: false,
     });
-    return { parser };
+    return { reader: { dialect, machine: (parser as unknown as { api: CsvParseMachine }).api } };
   } catch (e) {
     return { error: e instanceof Error ? e.message : String(e) };
   }
 }
 
-/** The live counters csv-parse keeps on its parser. */
-interface Counters {
-  readonly lines: number;
-  readonly empty_lines: number;
-  readonly bytes: number;
-}
+/** How much text follows what a scan is given: more to come, none (the file ended), or none (reading stopped). */
+type Follows = "more" | "end" | "stop";
 
-interface Fed {
-  readonly buf: Buffer;
-  readonly start: number;
-}
+const LF = 0x0a;
+const CR = 0x0d;
+
+/**
+ * Bytes decoded into one string at a time. V8 puts a string past about 128 KB in its large-object space,
+ * where each allocation costs as much as decoding a megabyte (measured: 124 MB took 0.7 s in 256 KB
+ * strings, 0.02 s in 64 KB ones).
+ */
+const TEXT_PIECE = 64 * 1024;
+
+/** Past this many characters, an unfinished record is held as pieces (see `add`). */
+const LONG_RECORD = 1024 * 1024;
+const ignore = (): void => undefined;
 
 /**
  * Records of a CSV/TSV byte stream in batches (one per chunk read), each with the physical line where it
- * starts. Drives csv-parse's synchronous state machine chunk by chunk, with no stream in between, so every
- * record completed before a parse error, a bad byte or a read error is delivered; that stop is passed to
- * `stop` with the line where reading stopped.
+ * starts. A record whose line holds no quote character is that line cut at the delimiter, which is all
+ * RFC 4180 allows there; consecutive records that hold quotes go to csv-parse as one piece of text, read
+ * whole, so it never holds bytes back between pieces. Every record completed before a parse error, a bad
+ * byte or a read error is delivered; that stop is passed to `stop` with the line where reading stopped.
  */
-export async function* readCsv(
-  parser: Parser,
-  chunks: AsyncIterable<Buffer>,
-  decoder: Decoder,
-  stop: (b: StructureBreak) => void,
-): AsyncGenerator<RawRecord[]> {
-  const info = parser.info as Counters;
+export async function* readCsv(reader: CsvReader, chunks: AsyncIterable<Buffer>, decoder: Decoder, stop: (b: StructureBreak) => void): AsyncGenerator<RawRecord[]> {
+  const { delimiter, quote } = reader.dialect;
+  const utf8 = new StringDecoder("utf8");
   let batch: RawRecord[] = [];
-  // Where the last record ended: csv-parse's raw line count, our physical line, skipped empty lines, byte offset.
-  let rawEnd = 0;
-  let lineEnd = 0;
-  let emptyEnd = 0;
-  let offsetEnd = 0;
-  // Bytes fed since the last record ended, to place a stop that falls inside a record.
-  let fed: Fed[] = [];
-  let fedBytes = 0;
-  let parseError: unknown;
-  let wideAt = 0;
+  // Text not yet made into records; it starts a record, on physical line `line`.
+  let pending = "";
+  let line = 1;
+  let broken: StructureBreak | undefined;
+  // The run of quoted records waiting for csv-parse: where it starts in the text scanned, each one's line.
+  let runFrom = -1;
+  const runLines: number[] = [];
 
-  // csv-parse hands each finished record to `push` synchronously, with its counters current.
-  parser.push = (record: unknown): boolean => {
-    // Past a stop, csv-parse still finishes the chunk it was given; what follows the stop is not read.
-    if (record === null || parseError !== undefined) return false;
-    const cells = record as string[];
-    const skipped = info.empty_lines - emptyEnd;
-    const line = lineEnd + 1 + skipped;
-    if (cells.length > MAX_CELLS) {
-      parseError = TOO_WIDE;
-      wideAt = line;
-      return false;
+  const readRun = (text: string, to: number): void => {
+    let k = 0;
+    const err = reader.machine.parse(
+      Buffer.from(text.slice(runFrom, to), "utf8"),
+      true,
+      (record) => {
+        if (broken !== undefined) return;
+        const cells = record as string[];
+        const at = runLines[k++] ?? line;
+        if (cells.length > MAX_CELLS) broken = tooWide(at);
+        else batch.push({ cells, line: at });
+      },
+      ignore,
+    );
+    if (err !== undefined && broken === undefined) broken = parseBreak(err, runLines[k] ?? line);
+    runFrom = -1;
+    runLines.length = 0;
+  };
+
+  // Makes records of what is complete in `pending` and keeps the rest. Positions of the next LF, CR and
+  // quote are found once and reused until passed, so each character is looked at about once.
+  const scan = (follows: Follows): void => {
+    const text = pending;
+    const len = text.length;
+    let pos = 0;
+    let lf = text.indexOf("\n");
+    let cr = text.indexOf("\r");
+    let qt = quote === null ? -1 : text.indexOf(quote);
+    while (pos < len && broken === undefined) {
+      if (lf >= 0 && lf < pos) lf = text.indexOf("\n", pos);
+      if (cr >= 0 && cr < pos) cr = text.indexOf("\r", pos);
+      if (qt >= 0 && qt < pos) qt = text.indexOf(quote as string, pos);
+      let end = lf < 0 ? cr : cr < 0 ? lf : Math.min(lf, cr);
+      const quoted = qt >= 0 && (end < 0 || qt < end);
+      if (quoted) end = Math.max(-1, recordEnd(text, qt + 1, true, quote));
+      let next: number;
+      if (end < 0) {
+        if (follows !== "end") break;
+        end = next = len;
+      } else if (text.charCodeAt(end) === CR) {
+        // A CR at the end of the text may be the first half of a CR LF.
+        if (end + 1 === len && follows === "more") break;
+        next = text.charCodeAt(end + 1) === LF ? end + 2 : end + 1;
+      } else next = end + 1;
+      if (quoted) {
+        if (runFrom < 0) runFrom = pos;
+        runLines.push(line);
+        line += breaksIn(text, pos, next);
+      } else {
+        if (runFrom >= 0) readRun(text, pos);
+        // An empty line is no record (csv-parse's skip_empty_lines, above).
+        if (end > pos && broken === undefined) {
+          const cells = text.slice(pos, end).split(delimiter);
+          if (cells.length > MAX_CELLS) broken = tooWide(line);
+          else batch.push({ cells, line });
+        }
+        if (next > end) line++;
+      }
+      if (broken === undefined) pos = next;
     }
-    const span = info.lines - rawEnd - skipped;
-    // csv-parse counts a CR LF inside quotes as two lines; correct for it only on multi-line records.
-    lineEnd = span > 1 ? line + span - 1 - crlfInCells(cells) : line;
-    rawEnd = info.lines;
-    emptyEnd = info.empty_lines;
-    offsetEnd = info.bytes;
-    batch.push({ cells, line });
-    return true;
-  };
-  const done = (err?: Error | null): void => {
-    if (err) parseError = err;
-  };
-  const feed = (data: Buffer): boolean => {
-    if (data.length === 0) return true;
-    fed.push({ buf: data, start: fedBytes });
-    fedBytes += data.length;
-    parser._transform(data, "utf8", done);
-    while (fed.length > 1 && fed[1]!.start <= offsetEnd) fed.shift();
-    // Checked here rather than by csv-parse's max_record_size, which costs a test on every byte.
-    if (parseError === undefined && fedBytes - offsetEnd > MAX_RECORD_SIZE) parseError = TOO_LONG;
-    return parseError === undefined;
-  };
-  const lineReached = (): number => {
-    let breaks = 0;
-    for (const f of fed) {
-      const from = Math.max(0, offsetEnd - f.start);
-      if (from < f.buf.length) breaks += countBreaks(f.buf, from, f.buf.length, from > 0 && f.buf[from - 1] === 0x0d);
+    if (runFrom >= 0 && broken === undefined) readRun(text, pos);
+    pending = pos === 0 ? text : text.slice(pos);
+    if (broken !== undefined || follows === "end") return;
+    if (follows === "stop" && quote !== null && pending.includes(quote)) {
+      // Reading stopped inside a quoted record: a mistake csv-parse finds before that point comes first.
+      const err = reader.machine.parse(Buffer.from(pending, "utf8"), false, ignore, ignore);
+      if (err !== undefined) broken = parseBreak(err, line);
     }
-    return lineEnd + 1 + breaks;
+    // Checked once a chunk, so the cost is not paid per character.
+    if (follows === "more" && pending.length > MAX_RECORD_SIZE) broken = tooLong(line);
   };
-  // csv-parse holds back the last few bytes of a chunk to see whether a line break or quote continues;
-  // when reading stops mid-file, these bytes (no delimiter, quote or line break) let it finish what came
-  // before. Whatever they start is never flushed, and an error they cause is not the file's.
-  const settle = (): void => {
-    if (parseError === undefined) parser._transform(SETTLE, "utf8", () => undefined);
+
+  // A record longer than LONG_RECORD waits as a list of pieces, and each new piece is scanned alone for
+  // the record's end, so a record of many pieces is neither copied nor scanned again piece by piece.
+  let held: string[] | undefined;
+  let heldLength = 0;
+  let heldInQuotes = false;
+  const add = (piece: string): void => {
+    if (held !== undefined) {
+      const end = recordEnd(piece, 0, heldInQuotes, quote);
+      held.push(piece);
+      heldLength += piece.length;
+      if (end < 0) {
+        heldInQuotes = end === INSIDE_QUOTES;
+        if (heldLength > MAX_RECORD_SIZE) broken = tooLong(line);
+        return;
+      }
+      pending = held.join("");
+      held = undefined;
+    } else pending += piece;
+    scan("more");
+    if (broken === undefined && pending.length > LONG_RECORD) {
+      const end = recordEnd(pending, 0, false, quote);
+      if (end >= 0) return;
+      held = [pending];
+      heldLength = pending.length;
+      heldInQuotes = end === INSIDE_QUOTES;
+      pending = "";
+    }
   };
+  const unhold = (): void => {
+    if (held === undefined) return;
+    pending = held.join("");
+    held = undefined;
+  };
+
   const take = (): RawRecord[] => {
     const out = batch;
     batch = [];
     return out;
   };
+  // Where reading stopped: the line after the last record, plus the line breaks read since.
+  const reached = (): number => line + breaksIn(pending, 0, pending.length);
 
   try {
     for await (const chunk of chunks) {
       const d = decoder.decode(chunk);
-      const ok = feed(d.data);
-      if (batch.length > 0) yield take();
-      if (!ok) return stop(parseBreak(parseError, parseError === TOO_WIDE ? wideAt : lineEnd + 1 + info.empty_lines - emptyEnd));
-      if (d.invalid !== undefined) {
-        settle();
-        if (batch.length > 0) yield take();
-        return stop({ line: lineReached(), message: `found ${d.invalid}` });
+      for (let at = 0; at < d.data.length && broken === undefined; at += TEXT_PIECE) add(utf8.write(d.data.subarray(at, at + TEXT_PIECE)));
+      if (d.invalid !== undefined && broken === undefined) {
+        unhold();
+        scan("stop");
       }
+      if (batch.length > 0) yield take();
+      if (broken !== undefined) return stop(broken);
+      if (d.invalid !== undefined) return stop({ line: reached(), message: `found ${d.invalid}` });
     }
   } catch (e) {
-    settle();
+    unhold();
+    scan("stop");
     if (batch.length > 0) yield take();
-    return stop({ line: lineReached(), message: `the file could not be read further: ${readError(e)}` });
+    return stop(broken ?? { line: reached(), message: `the file could not be read further: ${readError(e)}` });
   }
+  // A character cut off at the end is the decoder's to report; StringDecoder.end() would make it U+FFFD.
   const last = decoder.end();
-  const ok = feed(last.data);
-  if (ok && last.invalid !== undefined) {
-    settle();
-    if (batch.length > 0) yield take();
-    return stop({ line: lineReached(), message: `found ${last.invalid}` });
-  }
-  if (ok) parser._flush(done);
+  unhold();
+  pending += utf8.write(last.data);
+  scan(last.invalid === undefined ? "end" : "stop");
   if (batch.length > 0) yield take();
-  if (parseError !== undefined) stop(parseBreak(parseError, parseError === TOO_WIDE ? wideAt : lineEnd + 1 + info.empty_lines - emptyEnd));
+  if (broken !== undefined) stop(broken);
+  else if (last.invalid !== undefined) stop({ line: reached(), message: `found ${last.invalid}` });
 }
 
-const SETTLE = Buffer.alloc(8);
+const tooWide = (line: number): StructureBreak => ({ line, message: `the record starting at line ${line} has more than ${MAX_CELLS.toLocaleString("en-US")} cells` });
+const tooLong = (line: number): StructureBreak => ({ line, message: `the record starting at line ${line} is longer than ${MAX_RECORD_SIZE.toLocaleString("en-US")} characters (a quote that never closes?)` });
 
 /** A csv-parse error as a break at the line where the failing record starts. */
-/** The stop for a record past MAX_RECORD_SIZE bytes. */
-const TOO_LONG = new Error("record too long");
-/** The stop for a record of more than MAX_CELLS cells. */
-const TOO_WIDE = new Error("record too wide");
-
 function parseBreak(err: unknown, line: number): StructureBreak {
-  if (err === TOO_WIDE) return { line, message: `the record starting at line ${line} has more than ${MAX_CELLS.toLocaleString("en-US")} cells` };
-  if (err === TOO_LONG) return { line, message: `the record starting at line ${line} is longer than ${MAX_RECORD_SIZE / 1024 / 1024} MiB (a quote that never closes?)` };
   const field = err instanceof CsvError && typeof err.column === "number" ? { column: err.column + 1 } : {};
   const code = err instanceof CsvError ? err.code : undefined;
   const place = `${field.column === undefined ? "" : `field ${field.column} of `}the record starting at line ${line}`;

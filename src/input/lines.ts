@@ -1,37 +1,12 @@
 const LF = 0x0a;
-const CR = 0x0d;
 
 /**
- * Physical line breaks in buf[from, to): LF, CRLF and a lone CR each count once. `crBefore` says the
- * byte just before `from` was a CR, so an LF at `from` completes that break instead of starting one.
+ * Physical line breaks in text[from, to): LF, CR LF and a lone CR each count once. A CR counts unless
+ * an LF follows it, so a range that ends between the two leaves the break to the range after it.
  */
-export function countBreaks(buf: Buffer, from: number, to: number, crBefore: boolean): number {
+export function breaksIn(text: string, from: number, to: number): number {
   let n = 0;
-  let prevCr = crBefore;
-  for (let i = from; i < to; i++) {
-    const b = buf[i];
-    if (b === LF) {
-      if (!prevCr) n++;
-      prevCr = false;
-    } else if (b === CR) {
-      n++;
-      prevCr = true;
-    } else {
-      prevCr = false;
-    }
-  }
-  return n;
-}
-
-/** Occurrences of CR LF inside the cells of a record (each was counted twice by the CSV parser's line counter). */
-export function crlfInCells(cells: readonly string[]): number {
-  let n = 0;
-  for (const cell of cells) {
-    let i = cell.indexOf("\r\n");
-    while (i >= 0) {
-      n++;
-      i = cell.indexOf("\r\n", i + 2);
-    }
-  }
+  for (let i = text.indexOf("\n", from); i >= 0 && i < to; i = text.indexOf("\n", i + 1)) n++;
+  for (let i = text.indexOf("\r", from); i >= 0 && i < to; i = text.indexOf("\r", i + 1)) if (text.charCodeAt(i + 1) !== LF) n++;
   return n;
 }

@@ -4,7 +4,7 @@ import { open as openFile } from "node:fs/promises";
 import { pipeline } from "node:stream/promises";
 import { createGunzip } from "node:zlib";
 import { fail, ok, type Result } from "../problem.js";
-import { createCsvParser, readCsv } from "./csv.js";
+import { createCsvReader, readCsv } from "./csv.js";
 import { createDecoder } from "./decode.js";
 import { everyChunk } from "./every-chunk.js";
 import { readNdjson } from "./ndjson.js";
@@ -44,7 +44,7 @@ export async function openDelivery(path: string, options: InputOptions): Promise
     parse = (chunks) => readNdjson(chunks, decoder, stop);
   } else {
     const tsv = options.format === "tsv";
-    const made = createCsvParser({
+    const made = createCsvReader({
       delimiter: options.delimiter ?? (tsv ? "\t" : ","),
       quote: options.quote ?? (tsv ? null : '"'),
     });
@@ -52,7 +52,7 @@ export async function openDelivery(path: string, options: InputOptions): Promise
       await handle.close();
       return fail({ file: path, message: `cannot be read with these input options: ${made.error}` });
     }
-    parse = (chunks) => readCsv(made.parser, chunks, decoder, stop);
+    parse = (chunks) => readCsv(made.reader, chunks, decoder, stop);
   }
 
   const file = handle;

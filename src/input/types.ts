@@ -12,7 +12,7 @@ export interface InputOptions {
 }
 
 /**
- * The longest record a delivery may hold, in bytes for CSV/TSV and characters for an NDJSON line: far
+ * The longest record a delivery may hold, in characters (16 Mi, as text after decoding): far
  * beyond any real row, and a stop for a quote that never closes (which would otherwise swallow the rest
  * of the file into one cell) before it exhausts memory.
  */

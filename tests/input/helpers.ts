@@ -1,6 +1,6 @@
 import { writeFileSync } from "node:fs";
 import { join } from "node:path";
-import { createCsvParser, readCsv } from "../../src/input/csv.js";
+import { createCsvReader, readCsv } from "../../src/input/csv.js";
 import { createDecoder } from "../../src/input/decode.js";
 import { openDelivery } from "../../src/input/index.js";
 import { readNdjson } from "../../src/input/ndjson.js";
@@ -58,9 +58,9 @@ export async function readChunked(bytes: Buffer, options: Partial<InputOptions>,
   if (o.format === "ndjson") gen = readNdjson(pieces(bytes, size), decoder, onStop);
   else {
     const tsv = o.format === "tsv";
-    const made = createCsvParser({ delimiter: o.delimiter ?? (tsv ? "\t" : ","), quote: o.quote ?? (tsv ? null : '"') });
+    const made = createCsvReader({ delimiter: o.delimiter ?? (tsv ? "\t" : ","), quote: o.quote ?? (tsv ? null : '"') });
     if ("error" in made) throw new Error(made.error);
-    gen = readCsv(made.parser, pieces(bytes, size), decoder, onStop);
+    gen = readCsv(made.reader, pieces(bytes, size), decoder, onStop);
   }
   const records: RawRecord[] = [];
   for await (const batch of gen) for (const r of batch) records.push(r);
