@@ -1,6 +1,8 @@
 import { stat } from "node:fs/promises";
 import { availableParallelism } from "node:os";
 import type { Plan } from "./contract/plan.js";
+import { positional } from "./engine/header.js";
+import { prepareSpecOf, type ColumnLayout } from "./engine/prepare.js";
 import { runPlan } from "./engine/run.js";
 import { openDelivery, type Delivery, type InputOptions } from "./input/index.js";
 import { openDeliveryInThread, parseThreadAvailable } from "./input/parse-thread.js";
@@ -41,14 +43,17 @@ export async function checkFile(plan: Plan, file: string, options: CheckOptions)
     encoding: plan.input.encoding,
   };
   const onDisk = (await stat(file).catch(() => undefined))?.size;
-  const opened = useParseThread(options.parseThread ?? "auto", onDisk) ? await openDeliveryInThread(file, input) : await openDelivery(file, input);
+  const size = file.endsWith(".gz") ? undefined : onDisk;
+  // The parse thread also prepares the rows; without a header it knows at once where the columns are.
+  const prepare = { spec: prepareSpecOf(plan, size), ...(plan.input.header === "none" ? { columns: columnsOf(positional(plan)) } : {}) };
+  const opened = useParseThread(options.parseThread ?? "auto", onDisk) ? await openDeliveryInThread(file, input, prepare) : await openDelivery(file, input);
   if (!opened.ok) return opened;
   const delivery: Delivery = opened.value;
-  const size = file.endsWith(".gz") ? undefined : onDisk;
   const { rows, collector, profile } = await runPlan(plan, delivery.records, () => delivery.structureBreak(), {
     maxFindings: options.maxFindings ?? 1000,
     profile: options.profile === true,
     ...(size === undefined ? {} : { sizeHint: size }),
+    onHeader: (columns) => delivery.columnsFound?.(columns),
     ...(options.onProgress ? { onBatch: (rows: number) => options.onProgress?.(rows, delivery.bytesRead()) } : {}),
   });
   const summary = delivery.summary();
@@ -73,3 +78,5 @@ function useParseThread(choice: "auto" | "on" | "off", bytes: number | undefined
   if (choice === "off" || !parseThreadAvailable()) return false;
   return choice === "on" || (bytes !== undefined && bytes >= PARSE_THREAD_MIN_BYTES && availableParallelism() >= 2);
 }
+
+const columnsOf = (h: ColumnLayout): ColumnLayout => ({ positions: h.positions, width: h.width });

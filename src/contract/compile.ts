@@ -186,6 +186,7 @@ export function compilePlan({ src, spec, sha256, registry, today = todayDays() }
       name,
       index,
       type: col.type,
+      spec: col,
       parse: typed.ok ? typed.parser.parse : () => undefined,
       expected,
       required: col.required === true,

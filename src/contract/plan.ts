@@ -1,7 +1,7 @@
 import type { CellTest } from "../checks/index.js";
 import type { CompiledExpr } from "../expr/index.js";
 import type { CheckTally, Level, SourcePos } from "../report/model.js";
-import type { ColumnType, Encoding, HeaderPolicy, InputFormat } from "./types.js";
+import type { ColumnSpec, ColumnType, Encoding, HeaderPolicy, InputFormat } from "./types.js";
 import type { Value } from "../values.js";
 
 /** A check the plan runs, as it appears in the report's `checks` (without the count). */
@@ -18,6 +18,8 @@ export interface ColumnPlan {
   /** Position among the declared columns; the engine's row arrays use it. */
   readonly index: number;
   readonly type: ColumnType;
+  /** The column as the contract declares it: plain data, for preparing rows on another thread. */
+  readonly spec: ColumnSpec;
   readonly parse: (text: string) => Value | undefined;
   /** What a value of the type looks like, e.g. "an integer". */
   readonly expected: string;

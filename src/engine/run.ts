@@ -3,25 +3,13 @@ import { isFalse, isTrue } from "../expr/index.js";
 import type { RawRecord, StructureBreak } from "../input/index.js";
 import type { ColumnProfile, Finding, Level } from "../report/model.js";
 import { plural } from "../report/wording.js";
-import type { Value } from "../values.js";
+import { dateValue, timestampValue, timeValue, type TimestampValue, type Value } from "../values.js";
 import { createCollector, type Collector } from "./collector.js";
 import { createFileEnd } from "./file-end.js";
 import { matchHeader, positional, type HeaderMatch } from "./header.js";
 import { createProfiler } from "./profile.js";
-import { createU32List } from "./growable.js";
-import { keyPart } from "./key-text.js";
-import { createRowHasher } from "./row-hash.js";
-import { createSeenSet, type SeenSet } from "./seen-set.js";
+import { ABSENT, BLANK, createPreparer, INVALID, prepareSpecOf, SPACED, ZONED, type ColumnLayout, type PreparedRows, type Preparer } from "./prepare.js";
 import { cellValue, shownValue } from "./shown.js";
-
-/**
- * Whether String.prototype.trim could remove this UTF-16 unit: its white space and line terminators
- * (ECMA-262 §22.1.3.32: Zs, tab, VT, FF, U+FEFF, LF, CR, U+2028, U+2029). Most cells start and end
- * with neither, and this test is cheaper than trimming them.
- */
-function mayTrim(c: number): boolean {
-  return c <= 32 || c === 160 || (c >= 0x1680 && (c === 0x1680 || (c >= 0x2000 && c <= 0x200a) || c === 0x2028 || c === 0x2029 || c === 0x202f || c === 0x205f || c === 0x3000 || c === 0xfeff));
-}
 
 export interface EngineOptions {
   readonly maxFindings: number;
@@ -33,6 +21,8 @@ export interface EngineOptions {
   readonly onBatch?: (rows: number) => void;
   /** Told of every failure of a row-level check (cell checks, width, keys, duplicates, rules), kept or not. */
   readonly onRowFailure?: (check: number, row: number, level: Level) => void;
+  /** Told where the declared columns are once the header has been read (the parse thread prepares rows by it). */
+  readonly onHeader?: (layout: ColumnLayout) => void;
 }
 
 export interface EngineOutcome {
@@ -56,29 +46,23 @@ export async function runPlan(plan: Plan, batches: AsyncIterable<readonly RawRec
   const raws: string[] = new Array<string>(n).fill("");
   const state = new Uint8Array(n); // 0 ok, 1 blank, 2 type error, 3 absent
   const row = { values, texts };
-  const blank = plan.input.blank;
-  // Most cells are longer than any blank marker ("NA", "N/A"), so only short ones meet the set.
-  let blankMax = 0;
-  for (const b of blank) blankMax = Math.max(blankMax, b.length);
-  // A whole-row duplicate repeats its key too. So with a key, each row's hash waits in a sequential
-  // list (8 bytes a row, written in order) and only rows whose first key repeats, or is incomplete,
-  // meet the duplicate table: one random memory access a row instead of two.
-  const rowHashes = plan.keys.length > 0 && plan.duplicates !== undefined ? createU32List(1 << 16) : undefined;
-  // Sized once from the first batch and the file's size, so the tables rarely have to grow (each
-  // growth re-inserts every entry at random places in memory).
-  let keySets: SeenSet[] = [];
-  let dupSet: SeenSet | undefined;
-  const sizeTables = (batch: readonly RawRecord[]) => {
-    let chars = 0;
-    for (const rec of batch) for (const c of rec.cells) chars += c.length + 1;
-    const perRow = batch.length > 0 ? Math.max(1, chars / batch.length) : 100;
-    const rows = options.sizeHint === undefined ? 0 : Math.min(options.sizeHint / perRow, 50_000_000);
-    let slots = 1 << 12;
-    while (slots < rows * 2) slots *= 2;
-    keySets = plan.keys.map(() => createSeenSet(slots));
-    dupSet = plan.duplicates === undefined ? undefined : createSeenSet(rowHashes ? 1 << 10 : slots);
+  const kinds = cols.map((c) => c.type);
+  // The last date, time or timestamp each column rebuilt, and the number it came from: deliveries
+  // repeat themselves from row to row, and values are immutable, so one object serves them all.
+  const lastNumber = new Float64Array(n).fill(Number.NaN);
+  const lastValue: Value[] = new Array<Value>(n).fill(null);
+  const rebuild = (i: number, text: string, x: number, flags: number): Value => {
+    const kind = kinds[i];
+    if (kind === "text") return text;
+    if (kind === "integer" || kind === "decimal") return x;
+    if (kind === "boolean") return x !== 0;
+    const last = lastValue[i] as Value;
+    if (lastNumber[i] === x && (kind !== "timestamp" || (last as TimestampValue).zoned === ((flags & ZONED) !== 0))) return last;
+    const v = kind === "date" ? dateValue(x) : kind === "time" ? timeValue(x) : timestampValue(x, (flags & ZONED) !== 0);
+    lastNumber[i] = x;
+    lastValue[i] = v;
+    return v;
   };
-  const hasher = createRowHasher();
   const end = createFileEnd(plan, out);
   const profiler = options.profile ? createProfiler(plan) : undefined;
   let header: HeaderMatch | undefined = plan.input.header === "none" ? positional(plan) : undefined;
@@ -97,45 +81,37 @@ export async function runPlan(plan: Plan, batches: AsyncIterable<readonly RawRec
   const emitSpaces = (col: Column, raw: string, rowNo: number, line: number) =>
     emit(col.spacesCheck, rowNo, line, () => ({ column: col.name, value: cellValue(raw, col.sensitive), expected: "no leading or trailing spaces", message: `${col.name} ${shownValue(raw, col.sensitive)} has leading or trailing spaces` }));
 
-  const checkRecord = (rec: RawRecord, h: HeaderMatch) => {
+  const checkRecord = (rec: RawRecord, h: HeaderMatch, prep: PreparedRows, r: number) => {
     const rowNo = ++rows;
     const line = rec.line;
     const cells = rec.cells;
     if (cells.length !== h.width) {
-      rowHashes?.push(0);
-      rowHashes?.push(0);
       emit(plan.file.width, rowNo, line, () => ({ value: String(cells.length), expected: plural(h.width, "cell"), message: `record has ${plural(cells.length, "cell")}, expected ${h.width}; its cells are not checked` }));
       end.skipped(line);
       return;
     }
-    // Parse every cell first: a column's `when` and the rules may read any other column.
+    // Every cell first, from its prepared state: a column's `when` and the rules may read any other column.
+    const base = r * n;
     for (let i = 0; i < n; i++) {
-      const pos = h.positions[i] ?? -1;
-      if (pos < 0) {
+      const flags = prep.states[base + i] as number;
+      const s = flags & 3;
+      state[i] = s;
+      if (s === ABSENT) {
         values[i] = null;
         texts[i] = "";
         raws[i] = "";
-        state[i] = 3;
         continue;
       }
-      const raw = cells[pos] ?? "";
-      const text = raw.length > 0 && (mayTrim(raw.charCodeAt(0)) || mayTrim(raw.charCodeAt(raw.length - 1))) ? raw.trim() : raw;
+      const raw = cells[h.positions[i] as number] ?? "";
       raws[i] = raw;
-      if (text === "" || (text.length <= blankMax && blank.has(text))) {
+      if (s === BLANK) {
         values[i] = null;
         texts[i] = "";
-        state[i] = 1;
         continue;
       }
+      const text = (flags & SPACED) === 0 ? raw : raw.trim();
       texts[i] = text;
-      const v = (cols[i] as (typeof cols)[number]).parse(text);
-      if (v === undefined) {
-        values[i] = null;
-        state[i] = 2;
-      } else {
-        values[i] = v;
-        state[i] = 0;
-      }
+      values[i] = s === INVALID ? null : rebuild(i, text, prep.numbers[base + i] as number, flags);
     }
     for (let i = 0; i < n; i++) {
       const col = cols[i] as (typeof cols)[number];
@@ -167,32 +143,11 @@ export async function runPlan(plan: Plan, batches: AsyncIterable<readonly RawRec
         emit(cc.check, rowNo, line, () => ({ column: col.name, value: cellValue(raw, col.sensitive), expected: m.expected, message: `${col.name} ${shownValue(raw, col.sensitive)} ${m.reason}` }), m.level);
       }
     }
-    let rowHi = 0;
-    let rowLo = 0;
-    if (plan.duplicates !== undefined) {
-      hasher.reset();
-      for (let c = 0; c < cells.length; c++) hasher.add(cells[c] as string);
-      rowHi = hasher.hi;
-      rowLo = hasher.lo;
-    }
-    // The first key's outcome: 0 unique so far, -1 incomplete, else the row it repeats.
-    let firstKey = 0;
+    const repeats = r * (plan.keys.length + 1);
     for (let k = 0; k < plan.keys.length; k++) {
       const key = plan.keys[k] as (typeof plan.keys)[number];
-      hasher.reset();
-      let complete = true;
-      for (const c of key.columns) {
-        // A part that is blank or fails its type is NULL: as SQL UNIQUE, such a key never repeats.
-        if (state[c] !== 0) complete = false;
-        hasher.add(keyPart(values[c] as Value, texts[c] as string, state[c] as number));
-      }
-      if (!complete) {
-        if (k === 0) firstKey = -1;
-        continue;
-      }
-      const first = (keySets[k] as SeenSet).firstOrAdd(hasher.hi, hasher.lo, rowNo);
-      if (k === 0) firstKey = first;
-      if (first !== 0) {
+      const first = prep.repeats[repeats + k] as number;
+      if (first > 0) {
         emit(key.check, rowNo, line, () => {
           const value = key.columns.map((c) => cellValue(raws[c] as string, cols[c]?.sensitive === true)).join(", ");
           const shown = key.columns.map((c) => shownValue(raws[c] as string, cols[c]?.sensitive === true)).join(", ");
@@ -201,17 +156,9 @@ export async function runPlan(plan: Plan, batches: AsyncIterable<readonly RawRec
         });
       }
     }
-    if (dupSet !== undefined && plan.duplicates !== undefined) {
-      let first = 0;
-      if (rowHashes === undefined || firstKey === -1) first = dupSet.firstOrAdd(rowHi, rowLo, rowNo);
-      else if (firstKey > 0) {
-        // The row whose key this one repeats joins the table first (a no-op when it already has).
-        dupSet.firstOrAdd(rowHashes.at(2 * (firstKey - 1)), rowHashes.at(2 * (firstKey - 1) + 1), firstKey);
-        first = dupSet.firstOrAdd(rowHi, rowLo, rowNo);
-      }
-      rowHashes?.push(rowHi);
-      rowHashes?.push(rowLo);
-      if (first !== 0) emit(plan.duplicates, rowNo, line, () => ({ expected: "a row seen once", message: `row repeats row ${first} exactly` }));
+    if (plan.duplicates !== undefined) {
+      const first = prep.repeats[repeats + plan.keys.length] as number;
+      if (first > 0) emit(plan.duplicates, rowNo, line, () => ({ expected: "a row seen once", message: `row repeats row ${first} exactly` }));
     }
     for (const rule of plan.rules) {
       if (rule.when !== undefined && !isTrue(rule.when.evaluate(values))) continue;
@@ -231,21 +178,29 @@ export async function runPlan(plan: Plan, batches: AsyncIterable<readonly RawRec
     profiler?.row(values, texts, state);
   };
 
-  let sized = false;
+  // Rows from the parse thread come prepared; rows read on this thread are prepared here, batch by batch.
+  let preparer: Preparer | undefined;
   for await (const batch of batches) {
-    if (!sized) {
-      sizeTables(batch);
-      sized = true;
+    let b = 0;
+    if (header === undefined && batch.length > 0) {
+      const rec = batch[0] as RawRecord;
+      header = matchHeader(plan, rec.cells, rec.line);
+      for (const hf of header.findings) if (out.fail(hf.check, 0)) out.keep(hf.check, hf.finding);
+      for (const [check, n] of header.more ?? []) for (let k = 0; k < n; k++) out.fail(check, 0);
+      options.onHeader?.(header);
+      b = 1;
     }
-    for (let b = 0; b < batch.length; b++) {
-      const rec = batch[b] as RawRecord;
-      if (header === undefined) {
-        header = matchHeader(plan, rec.cells, rec.line);
-        for (const hf of header.findings) if (out.fail(hf.check, 0)) out.keep(hf.check, hf.finding);
-        for (const [check, n] of header.more ?? []) for (let k = 0; k < n; k++) out.fail(check, 0);
-        continue;
+    if (header !== undefined && b < batch.length) {
+      const h = header;
+      if ((batch[b] as RawRecord).prepared !== undefined) {
+        for (; b < batch.length; b++) {
+          const rec = batch[b] as RawRecord;
+          checkRecord(rec, h, rec.prepared as PreparedRows, rec.at ?? 0);
+        }
+      } else {
+        const prep = (preparer ??= createPreparer(prepareSpecOf(plan, options.sizeHint), h)).prepare(batch, b, batch.length);
+        for (let r = 0; b < batch.length; b++, r++) checkRecord(batch[b] as RawRecord, h, prep, r);
       }
-      checkRecord(rec, header);
     }
     options.onBatch?.(rows);
   }

@@ -8,6 +8,7 @@ import { createCsvReader, readCsv } from "./csv.js";
 import { createDecoder } from "./decode.js";
 import { everyChunk } from "./every-chunk.js";
 import { readNdjson } from "./ndjson.js";
+import type { ColumnLayout } from "../engine/prepare.js";
 import type { Delivery, DeliverySummary, InputOptions, RawRecord, StructureBreak } from "./types.js";
 
 /** Bytes per read; large enough that per-chunk costs vanish beside parsing. */
@@ -107,9 +108,11 @@ export function deliveryOf(
   structureBreak: () => StructureBreak | undefined,
   bytesRead: () => number,
   summary: () => DeliverySummary | undefined,
+  columnsFound?: (columns: ColumnLayout) => void,
 ): Delivery {
   return {
     records,
+    ...(columnsFound === undefined ? {} : { columnsFound }),
     structureBreak,
     bytesRead,
     summary: () => {

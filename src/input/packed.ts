@@ -1,3 +1,4 @@
+import type { PreparedRows } from "../engine/prepare.js";
 import type { RawRecord } from "./types.js";
 
 /**
@@ -9,6 +10,8 @@ import type { RawRecord } from "./types.js";
 export interface PackedRecords {
   readonly text: string;
   readonly layout: Uint32Array;
+  /** The records' prepared rows, in order, when they were prepared before packing. */
+  readonly prepared?: PreparedRows;
 }
 
 /**
@@ -53,7 +56,7 @@ function cut(text: string, from: number, to: number): string {
 
 /** The records of a packed batch, as they were before packing. */
 export function unpackRecords(packed: PackedRecords): RawRecord[] {
-  const { text, layout } = packed;
+  const { text, layout, prepared } = packed;
   const out: RawRecord[] = [];
   let pos = 0;
   let at = 0;
@@ -66,7 +69,7 @@ export function unpackRecords(packed: PackedRecords): RawRecord[] {
       cells[c] = cut(text, pos, pos + len);
       pos += len;
     }
-    out.push({ cells, line });
+    out.push(prepared === undefined ? { cells, line } : { cells, line, prepared, at: out.length });
   }
   return out;
 }

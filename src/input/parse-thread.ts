@@ -4,7 +4,8 @@ import { Worker } from "node:worker_threads";
 import { ok, type Result } from "../problem.js";
 import { deliveryOf, openDelivery } from "./open.js";
 import { unpackRecords } from "./packed.js";
-import type { ParseJob, ParseMessage } from "./parse-thread-messages.js";
+import type { MainMessage, ParseJob, ParseMessage } from "./parse-thread-messages.js";
+import type { ColumnLayout, PrepareSpec } from "../engine/prepare.js";
 import type { Delivery, DeliverySummary, InputOptions, RawRecord, StructureBreak } from "./types.js";
 
 const WORKER = new URL("./parse-worker.js", import.meta.url);
@@ -23,8 +24,8 @@ type Heard = ParseMessage | { readonly kind: "stopped"; readonly message: string
  * Opens a delivery whose reading, decoding and parsing run on a second thread while the caller checks
  * the records: the same records, lines, structure break and summary as `openDelivery`, in the same order.
  */
-export async function openDeliveryInThread(path: string, options: InputOptions): Promise<Result<Delivery>> {
-  const job: ParseJob = { path, options };
+export async function openDeliveryInThread(path: string, options: InputOptions, prepare?: { readonly spec: PrepareSpec; readonly columns?: ColumnLayout }): Promise<Result<Delivery>> {
+  const job: ParseJob = { path, options, ...(prepare === undefined ? {} : { prepare: prepare.spec, ...(prepare.columns === undefined ? {} : { columns: prepare.columns }) }) };
   let worker: Worker;
   try {
     worker = new Worker(WORKER, { workerData: job });
@@ -72,7 +73,7 @@ export async function openDeliveryInThread(path: string, options: InputOptions):
       for (;;) {
         const m = await next();
         if (m.kind === "batch") {
-          worker.postMessage("taken");
+          worker.postMessage({ kind: "taken" } satisfies MainMessage);
           bytes = m.bytesRead;
           yield unpackRecords(m);
         } else if (m.kind === "end") {
@@ -86,5 +87,6 @@ export async function openDeliveryInThread(path: string, options: InputOptions):
     }
   }
 
-  return ok(deliveryOf(records(), () => broken, () => bytes, () => summary));
+  const columnsFound = (columns: ColumnLayout): void => worker.postMessage({ kind: "columns", columns: { positions: columns.positions, width: columns.width } } satisfies MainMessage);
+  return ok(deliveryOf(records(), () => broken, () => bytes, () => summary, columnsFound));
 }

@@ -1,3 +1,4 @@
+import type { ColumnLayout, PreparedRows } from "../engine/prepare.js";
 /** The text encodings a contract may declare; `auto` sniffs a byte order mark, else UTF-8, else windows-1252. */
 export type Encoding = "utf-8" | "utf-16le" | "utf-16be" | "windows-1252" | "latin1" | "auto";
 
@@ -21,10 +22,15 @@ export const MAX_RECORD_SIZE = 16 * 1024 * 1024;
 /** The most cells a record may have: far past any spreadsheet's columns (16,384), and a bound on the memory one record takes. */
 export const MAX_CELLS = 100_000;
 
-/** One record as read: its cells untouched (no trimming) and the 1-based physical line where it starts. */
+/**
+ * One record as read: its cells untouched (no trimming) and the 1-based physical line where it starts.
+ * A record from the parse thread comes prepared: row `at` of `prepared` holds its parsed cells.
+ */
 export interface RawRecord {
   readonly cells: readonly string[];
   readonly line: number;
+  readonly prepared?: PreparedRows;
+  readonly at?: number;
 }
 
 /** Why reading stopped before the end of the file; `column` is the 1-based field number when known. */
@@ -52,6 +58,8 @@ export interface Delivery {
   readonly records: AsyncIterable<readonly RawRecord[]>;
   /** After iteration: why reading stopped early, if it did. */
   structureBreak(): StructureBreak | undefined;
+  /** Where the declared columns are, once the header is read: a delivery that prepares rows needs it. */
+  columnsFound?(columns: ColumnLayout): void;
   /** After iteration: encoding used, fallback note, raw size and hash. */
   summary(): DeliverySummary;
   /** Raw bytes read from the file so far (compressed bytes for `.gz`), for progress. */
