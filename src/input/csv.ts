@@ -60,7 +60,7 @@ const CR = 0x0d;
  * where each allocation costs as much as decoding a megabyte (measured: 124 MB took 0.7 s in 256 KB
  * strings, 0.02 s in 64 KB ones).
  */
-const TEXT_PIECE = 64 * 1024;
+export const TEXT_PIECE = 64 * 1024;
 
 /** Past this many characters, an unfinished record is held as pieces (see `add`). */
 const LONG_RECORD = 1024 * 1024;

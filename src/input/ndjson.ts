@@ -1,7 +1,7 @@
 import { StringDecoder } from "node:string_decoder";
 import { memberSources } from "./json-members.js";
 import type { Decoder } from "./decode.js";
-import { readError } from "./csv.js";
+import { readError, TEXT_PIECE } from "./csv.js";
 import { MAX_RECORD_SIZE, type RawRecord, type StructureBreak } from "./types.js";
 
 /**
@@ -17,7 +17,8 @@ export async function* readNdjson(
   stop: (b: StructureBreak) => void,
 ): AsyncGenerator<RawRecord[]> {
   const text = new StringDecoder("utf8");
-  let rest = "";
+  let rest: string[] = [];
+  let restLength = 0;
   let line = 0;
   let header: string[] | undefined;
   let known: Set<string> | undefined;
@@ -56,20 +57,36 @@ export async function* readNdjson(
     for (const k of Object.keys(obj)) if (!known!.has(k)) cells.push(text(k));
     batch.push({ cells, line });
   };
+  // The start of an unfinished line waits as a list of pieces, joined once its end arrives: a long line
+  // is neither copied nor searched again piece by piece.
   const lines = (s: string): void => {
-    const all = rest + s;
+    let i = s.indexOf("\n");
+    if (i < 0) {
+      rest.push(s);
+      restLength += s.length;
+      if (restLength > MAX_RECORD_SIZE && broken === undefined) tooLong();
+      return;
+    }
     let from = 0;
-    for (let i = all.indexOf("\n"); i >= 0 && broken === undefined; i = all.indexOf("\n", from)) {
+    if (restLength + i > MAX_RECORD_SIZE) return tooLong();
+    record(rest.length === 0 ? s.slice(0, i) : rest.join("") + s.slice(0, i));
+    rest = [];
+    restLength = 0;
+    from = i + 1;
+    for (i = s.indexOf("\n", from); i >= 0 && broken === undefined; i = s.indexOf("\n", from)) {
       if (i - from > MAX_RECORD_SIZE) return tooLong();
-      record(all.slice(from, i));
+      record(s.slice(from, i));
       from = i + 1;
     }
-    rest = all.slice(from);
-    if (rest.length > MAX_RECORD_SIZE && broken === undefined) tooLong();
+    if (broken === undefined && from < s.length) {
+      rest.push(s.slice(from));
+      restLength = s.length - from;
+    }
   };
   const tooLong = (): void => {
     broken = { line: line + 1, message: `line ${line + 1} is longer than ${MAX_RECORD_SIZE / 1024 / 1024} Mi characters` };
-    rest = "";
+    rest = [];
+    restLength = 0;
   };
   const take = (): RawRecord[] => {
     const out = batch;
@@ -80,7 +97,8 @@ export async function* readNdjson(
   try {
     for await (const chunk of chunks) {
       const d = decoder.decode(chunk);
-      lines(text.write(d.data));
+      // In 64 KB pieces: V8 allocates longer strings in its large-object space, at a high cost each.
+      for (let at = 0; at < d.data.length && broken === undefined; at += TEXT_PIECE) lines(text.write(d.data.subarray(at, at + TEXT_PIECE)));
       if (batch.length > 0) yield take();
       if (broken !== undefined) return stop(broken);
       if (d.invalid !== undefined) return stop({ line: line + 1, message: `found ${d.invalid}` });
@@ -93,7 +111,7 @@ export async function* readNdjson(
   lines(text.write(last.data));
   if (broken === undefined && last.invalid !== undefined) broken = { line: line + 1, message: `found ${last.invalid}` };
   if (broken === undefined && last.invalid === undefined) {
-    const tail = rest + text.end();
+    const tail = rest.join("") + text.end();
     if (tail !== "") record(tail);
   }
   if (batch.length > 0) yield take();
