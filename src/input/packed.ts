@@ -1,4 +1,5 @@
 import type { PreparedRows } from "../engine/prepare.js";
+import { ownString, VIEW_MIN } from "./own-string.js";
 import type { RawRecord } from "./types.js";
 
 /**
@@ -45,13 +46,9 @@ export function packRecords(records: readonly RawRecord[], from = 0, budget = In
   return { packed: { text, layout }, next: end };
 }
 
-/**
- * A cut of the batch's text that does not keep the whole batch alive. V8 cuts strings of 13 or more
- * characters as views into their parent, so a kept cell (a group's key, a finding's value) would pin
- * the batch it came from; such cells are copied instead (a rope flattens into a new string of its own).
- */
+/** A cell of the batch's text that does not keep the whole batch alive (see own-string.ts). */
 function cut(text: string, from: number, to: number): string {
-  return to - from < 13 ? text.slice(from, to) : (" " + text.slice(from, to)).slice(1);
+  return to - from < VIEW_MIN ? text.slice(from, to) : ownString(text.slice(from, to));
 }
 
 /** The records of a packed batch, as they were before packing. */
