@@ -152,8 +152,9 @@ export async function* readCsv(reader: CsvReader, chunks: AsyncIterable<Buffer>,
     if (broken !== undefined || follows === "end") return;
     if (follows === "stop" && quote !== null && pending.includes(quote)) {
       // Reading stopped inside a quoted record: a mistake csv-parse finds before that point comes first.
-      const err = reader.machine.parse(Buffer.from(pending, "utf8"), false, ignore, ignore);
-      if (err !== undefined) broken = parseBreak(err, line);
+      // Read as if the file ended there, so nothing is held back; that its quote is still open is not one.
+      const err = reader.machine.parse(Buffer.from(pending, "utf8"), true, ignore, ignore);
+      if (err !== undefined && !(err instanceof CsvError && err.code === "CSV_QUOTE_NOT_CLOSED")) broken = parseBreak(err, line);
     }
     // Checked once a chunk, so the cost is not paid per character.
     if (follows === "more" && pending.length > MAX_RECORD_SIZE) broken = tooLong(line);

@@ -105,4 +105,30 @@ describe("opening", () => {
     // SHA-256 of the 4 bytes `"abc`, computed with sha256sum (GNU coreutils).
     expect(read.summary.sha256).toBe("aa885fb27a812abedb8978a3bb3218cbb01a22d270469b74f23995140175c462");
   });
+
+  it("invalid bytes stop at their own physical line, counting CR LF, lone CR and empty lines once each", async () => {
+    const bytes = Buffer.concat([Buffer.from('a,b\r\n\r\n"x\r\ny",z\rc,'), Buffer.from([0xff]), Buffer.from("d\n")]);
+    for (const size of [1, 3, 4096]) {
+      const read = await readChunked(bytes, {}, size);
+      expect(read.rows).toEqual([["a", "b"], ["x\r\ny", "z"]]);
+      // Line 1 a,b; line 2 empty; lines 3-4 the quoted record; line 5 holds the bad byte.
+      expect(read.stop?.line).toBe(5);
+      expect(read.stop?.message).toContain("not valid UTF-8");
+    }
+  });
+
+  it("a quoting mistake before invalid bytes is the one reported; an open quote cut short by them is not a mistake", async () => {
+    const mistake = Buffer.concat([Buffer.from('a,b\nbb"x,'), Buffer.from([0xff])]);
+    const open = Buffer.concat([Buffer.from('a,b\n"q'), Buffer.from([0xff]), Buffer.from('"\n')]);
+    const closed = Buffer.concat([Buffer.from('a,b\n"q"'), Buffer.from([0xf0, 0xff])]);
+    for (const size of [1, 4096]) {
+      const m = await readChunked(mistake, {}, size);
+      expect(m.stop).toMatchObject({ line: 2, column: 1 });
+      const o = await readChunked(open, {}, size);
+      expect(o.stop?.line).toBe(2);
+      expect(o.stop?.message).toContain("not valid UTF-8");
+      const c = await readChunked(closed, {}, size);
+      expect(c.stop?.message).toContain("not valid UTF-8");
+    }
+  });
 });
