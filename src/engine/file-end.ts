@@ -45,7 +45,7 @@ export type CellStates = Uint8Array;
 export function createFileEnd(plan: Plan, out: Collector) {
   const groups: Groups[] = plan.groups.map((g) => ({
     plan: g,
-    index: createSeenSet(1 << 12),
+    index: createSeenSet(1 << 11),
     keys: [],
     table: createGroupTable(g.assert.aggregates),
     firstRow: createU32List(),

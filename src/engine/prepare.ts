@@ -112,11 +112,11 @@ export function createPreparer(spec: PrepareSpec, layout: ColumnLayout): Prepare
     let chars = 0;
     for (let r = from; r < to; r++) for (const c of (records[r] as RawRecord).cells) chars += c.length + 1;
     const perRow = to > from ? Math.max(1, chars / (to - from)) : 100;
-    const expected = spec.sizeHint === undefined ? 0 : Math.min(spec.sizeHint / perRow, 50_000_000);
-    let slots = 1 << 12;
-    while (slots < expected * 2) slots *= 2;
-    keySets = keys.map(() => createSeenSet(slots));
-    dupSet = spec.duplicates ? createSeenSet(rowHashes ? 1 << 10 : slots) : undefined;
+    // A tenth more than the estimate: rows a little shorter than the first ones must not make the table double.
+    const expected = spec.sizeHint === undefined ? 0 : Math.min((1.1 * spec.sizeHint) / perRow, 50_000_000);
+    const capacity = Math.max(1 << 12, Math.ceil(expected));
+    keySets = keys.map(() => createSeenSet(capacity));
+    dupSet = spec.duplicates ? createSeenSet(rowHashes ? 1 << 10 : capacity) : undefined;
   };
 
   const prepareRow = (cells: readonly string[], out: PreparedRows, r: number): void => {
