@@ -1,5 +1,6 @@
 import type { Plan } from "../contract/plan.js";
 import type { ColumnSpec } from "../contract/types.js";
+import { NO_POOL, type BufferPool } from "../input/buffer-pool.js";
 import type { RawRecord } from "../input/types.js";
 import { compileType } from "../types/index.js";
 import type { Value } from "../values.js";
@@ -29,10 +30,11 @@ export interface ColumnLayout {
 }
 
 /**
- * Rows prepared together. Per row and declared column: a state (CellState, with SPACED and ZONED as
- * flags) and, for a parsed cell that is not text, its value as a number. Per row, for each key then
- * for duplicates: -1 when the key has a NULL part, 0 when first seen, else the earlier row it repeats.
- * A record of the wrong width is left at zero throughout; the engine does not look at it.
+ * Rows prepared together. Per row and declared column: a state (PARSED and the rest, with SPACED and
+ * ZONED as flags). Per row and column that is not text (see numberSlots): a parsed value as a number.
+ * Per row, for each key then for duplicates: -1 when the key has a NULL part, 0 when first seen, else
+ * the earlier row it repeats. A record of the wrong width is left at zero throughout; the engine does
+ * not look at it.
  */
 export interface PreparedRows {
   readonly states: Uint8Array;
@@ -63,7 +65,17 @@ export function trimmed(raw: string): string {
   return raw.length > 0 && (mayTrim(raw.charCodeAt(0)) || mayTrim(raw.charCodeAt(raw.length - 1))) ? raw.trim() : raw;
 }
 
-/** A parsed value as the number PreparedRows holds (text needs none: it is the cell). */
+/**
+ * Where each column's number sits within a row of PreparedRows.numbers (-1 for text, which needs none:
+ * it is the cell), and how many numbers a row has.
+ */
+export function numberSlots(types: readonly ColumnSpec["type"][]): { readonly slots: Int32Array; readonly count: number } {
+  let count = 0;
+  const slots = Int32Array.from(types, (t) => (t === "text" ? -1 : count++));
+  return { slots, count };
+}
+
+/** A parsed value as the number PreparedRows holds. */
 function numberOf(v: Value): number {
   if (typeof v === "number") return v;
   if (typeof v === "boolean") return v ? 1 : 0;
@@ -73,7 +85,7 @@ function numberOf(v: Value): number {
 
 export interface Preparer {
   /** Prepare the data records records[from, to), which follow those of earlier calls in the file. */
-  prepare(records: readonly RawRecord[], from: number, to: number): PreparedRows;
+  prepare(records: readonly RawRecord[], from: number, to: number, pool?: BufferPool): PreparedRows;
 }
 
 /**
@@ -92,6 +104,7 @@ export function createPreparer(spec: PrepareSpec, layout: ColumnLayout): Prepare
   let blankMax = 0;
   for (const b of blank) blankMax = Math.max(blankMax, b.length);
   const { positions, width } = layout;
+  const { slots: numberAt, count: perRowNumbers } = numberSlots(spec.columns.map((c) => c.type));
   const keys = spec.keys;
   const nk = keys.length;
   const values: Value[] = new Array<Value>(n).fill(null);
@@ -156,7 +169,8 @@ export function createPreparer(spec: PrepareSpec, layout: ColumnLayout): Prepare
         values[i] = v;
         state[i] = PARSED;
         out.states[base + i] = spaced | (typeof v === "object" && v !== null && v.kind === "timestamp" && v.zoned ? ZONED : 0);
-        out.numbers[base + i] = numberOf(v);
+        const slot = numberAt[i] as number;
+        if (slot >= 0) out.numbers[r * perRowNumbers + slot] = numberOf(v);
       }
     }
     const at = r * (nk + 1);
@@ -198,10 +212,14 @@ export function createPreparer(spec: PrepareSpec, layout: ColumnLayout): Prepare
   };
 
   return {
-    prepare(records, from, to) {
+    prepare(records, from, to, pool = NO_POOL) {
       if (keySets === undefined) sizeTables(records, from, to);
       const count = Math.max(0, to - from);
-      const out: PreparedRows = { states: new Uint8Array(count * n), numbers: new Float64Array(count * n), repeats: new Int32Array(count * (nk + 1)) };
+      const out: PreparedRows = {
+        states: pool.take(Uint8Array, count * n),
+        numbers: pool.take(Float64Array, count * perRowNumbers),
+        repeats: pool.take(Int32Array, count * (nk + 1)),
+      };
       for (let r = 0; r < count; r++) prepareRow((records[from + r] as RawRecord).cells, out, r);
       return out;
     },

@@ -8,7 +8,7 @@ import { createCollector, type Collector } from "./collector.js";
 import { createFileEnd } from "./file-end.js";
 import { matchHeader, positional, type HeaderMatch } from "./header.js";
 import { createProfiler } from "./profile.js";
-import { ABSENT, BLANK, createPreparer, INVALID, prepareSpecOf, SPACED, ZONED, type ColumnLayout, type PreparedRows, type Preparer } from "./prepare.js";
+import { ABSENT, BLANK, createPreparer, INVALID, numberSlots, prepareSpecOf, SPACED, ZONED, type ColumnLayout, type PreparedRows, type Preparer } from "./prepare.js";
 import { cellValue, shownValue } from "./shown.js";
 
 export interface EngineOptions {
@@ -47,6 +47,7 @@ export async function runPlan(plan: Plan, batches: AsyncIterable<readonly RawRec
   const state = new Uint8Array(n); // 0 ok, 1 blank, 2 type error, 3 absent
   const row = { values, texts };
   const kinds = cols.map((c) => c.type);
+  const { slots: numberAt, count: perRowNumbers } = numberSlots(kinds);
   // The last date, time or timestamp each column rebuilt, and the number it came from: deliveries
   // repeat themselves from row to row, and values are immutable, so one object serves them all.
   const lastNumber = new Float64Array(n).fill(Number.NaN);
@@ -92,6 +93,7 @@ export async function runPlan(plan: Plan, batches: AsyncIterable<readonly RawRec
     }
     // Every cell first, from its prepared state: a column's `when` and the rules may read any other column.
     const base = r * n;
+    const numberBase = r * perRowNumbers;
     for (let i = 0; i < n; i++) {
       const flags = prep.states[base + i] as number;
       const s = flags & 3;
@@ -111,7 +113,7 @@ export async function runPlan(plan: Plan, batches: AsyncIterable<readonly RawRec
       }
       const text = (flags & SPACED) === 0 ? raw : raw.trim();
       texts[i] = text;
-      values[i] = s === INVALID ? null : rebuild(i, text, prep.numbers[base + i] as number, flags);
+      values[i] = s === INVALID ? null : rebuild(i, text, prep.numbers[numberBase + (numberAt[i] as number)] as number, flags);
     }
     for (let i = 0; i < n; i++) {
       const col = cols[i] as (typeof cols)[number];

@@ -1,4 +1,5 @@
 import type { PreparedRows } from "../engine/prepare.js";
+import { NO_POOL, type BufferPool } from "./buffer-pool.js";
 import { ownString, VIEW_MIN } from "./own-string.js";
 import type { RawRecord } from "./types.js";
 
@@ -20,7 +21,7 @@ export interface PackedRecords {
  * returns the packed records and the index after the last one packed. Appending builds a rope,
  * flattened once when the message is sent.
  */
-export function packRecords(records: readonly RawRecord[], from = 0, budget = Infinity): { packed: PackedRecords; next: number } {
+export function packRecords(records: readonly RawRecord[], from = 0, budget = Infinity, pool: BufferPool = NO_POOL): { packed: PackedRecords; next: number } {
   let end = from;
   let size = 0;
   let chars = 0;
@@ -30,7 +31,7 @@ export function packRecords(records: readonly RawRecord[], from = 0, budget = In
     for (let c = 0; c < cells.length; c++) chars += (cells[c] as string).length;
     end++;
   }
-  const layout = new Uint32Array(size);
+  const layout = pool.take(Uint32Array, size);
   let text = "";
   let at = 0;
   for (let r = from; r < end; r++) {
@@ -49,6 +50,13 @@ export function packRecords(records: readonly RawRecord[], from = 0, budget = In
 /** A cell of the batch's text that does not keep the whole batch alive (see own-string.ts). */
 function cut(text: string, from: number, to: number): string {
   return to - from < VIEW_MIN ? text.slice(from, to) : ownString(text.slice(from, to));
+}
+
+/** The buffers under a packed piece's typed arrays, to be handed back once its rows are checked. */
+export function buffersOf(packed: PackedRecords): ArrayBuffer[] {
+  const p = packed.prepared;
+  const arrays = p === undefined ? [packed.layout] : [packed.layout, p.states, p.numbers, p.repeats];
+  return arrays.map((a) => a.buffer as ArrayBuffer);
 }
 
 /** The records of a packed batch, as they were before packing. */

@@ -13,8 +13,8 @@ export interface ParseJob {
   readonly columns?: ColumnLayout;
 }
 
-/** What the main thread says: a batch was taken, or where the declared columns are. */
-export type MainMessage = { readonly kind: "taken" } | { readonly kind: "columns"; readonly columns: ColumnLayout };
+/** What the main thread says: a batch was checked (its buffers come back), or where the declared columns are. */
+export type MainMessage = { readonly kind: "taken"; readonly buffers: readonly ArrayBuffer[] } | { readonly kind: "columns"; readonly columns: ColumnLayout };
 
 /** What the parse thread says, in this order: opened (or failed), batches, end. */
 export type ParseMessage =

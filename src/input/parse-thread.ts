@@ -3,7 +3,7 @@ import { fileURLToPath } from "node:url";
 import { Worker } from "node:worker_threads";
 import { ok, type Result } from "../problem.js";
 import { deliveryOf, openDelivery } from "./open.js";
-import { unpackRecords } from "./packed.js";
+import { buffersOf, unpackRecords } from "./packed.js";
 import type { MainMessage, ParseJob, ParseMessage } from "./parse-thread-messages.js";
 import type { ColumnLayout, PrepareSpec } from "../engine/prepare.js";
 import type { Delivery, DeliverySummary, InputOptions, RawRecord, StructureBreak } from "./types.js";
@@ -80,9 +80,11 @@ export async function openDeliveryInThread(path: string, options: InputOptions, 
       for (;;) {
         const m = await next();
         if (m.kind === "batch") {
-          worker.postMessage({ kind: "taken" } satisfies MainMessage);
           bytes = m.bytesRead;
           yield unpackRecords(m);
+          // The rows are checked: their arrays go back to be filled again.
+          const buffers = buffersOf(m);
+          worker.postMessage({ kind: "taken", buffers } satisfies MainMessage, buffers);
         } else if (m.kind === "end") {
           broken = m.structureBreak;
           summary = m.summary;

@@ -1,7 +1,8 @@
 import { parentPort, workerData } from "node:worker_threads";
 import { createPreparer, type ColumnLayout, type Preparer } from "../engine/prepare.js";
 import { openDelivery } from "./open.js";
-import { packRecords } from "./packed.js";
+import { createBufferPool } from "./buffer-pool.js";
+import { buffersOf, packRecords } from "./packed.js";
 import { BATCHES_AHEAD, type MainMessage, type ParseJob, type ParseMessage } from "./parse-thread-messages.js";
 
 // The parse thread: reads, decodes and parses one delivery exactly as the main thread would (the same
@@ -19,9 +20,13 @@ if (port !== null) {
   let ahead = 0;
   let columns: ColumnLayout | undefined = job.columns;
   let wake: (() => void) | undefined;
+  const pool = createBufferPool();
   port.on("message", (m: MainMessage) => {
     if (m.kind === "columns") columns = m.columns;
-    else ahead--;
+    else {
+      ahead--;
+      pool.giveBack(m.buffers);
+    }
     wake?.();
     wake = undefined;
   });
@@ -46,12 +51,11 @@ if (port !== null) {
         from = 1;
       }
       while (from < batch.length) {
-        const { packed, next } = packRecords(batch, from, PIECE_CHARS);
-        const prepared = job.prepare !== undefined && columns !== undefined ? (preparer ??= createPreparer(job.prepare, columns)).prepare(batch, from, next) : undefined;
+        const { packed, next } = packRecords(batch, from, PIECE_CHARS, pool);
+        const prepared = job.prepare !== undefined && columns !== undefined ? (preparer ??= createPreparer(job.prepare, columns)).prepare(batch, from, next, pool) : undefined;
         from = next;
-        const transfer = [packed.layout.buffer as ArrayBuffer];
-        if (prepared) transfer.push(prepared.states.buffer as ArrayBuffer, prepared.numbers.buffer as ArrayBuffer, prepared.repeats.buffer as ArrayBuffer);
-        say({ kind: "batch", text: packed.text, layout: packed.layout, ...(prepared ? { prepared } : {}), bytesRead: delivery.bytesRead() }, transfer);
+        const piece = { text: packed.text, layout: packed.layout, ...(prepared ? { prepared } : {}) };
+        say({ kind: "batch", ...piece, bytesRead: delivery.bytesRead() }, buffersOf(piece));
         ahead++;
         while (ahead >= BATCHES_AHEAD) await heard();
       }
