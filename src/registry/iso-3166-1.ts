@@ -7,6 +7,7 @@ interface CountriesModule {
   alpha2ToAlpha3(code: string): string | undefined;
   alpha2ToNumeric(code: string): string | undefined;
   getName(code: string, lang: string): string | undefined;
+  registerLocale(locale: object): void;
 }
 
 /** Codes in i18n-iso-countries that ISO 3166-1 does not assign (XK, Kosovo, is a user-assigned code). */
@@ -20,7 +21,10 @@ function csvField(v: string): string {
 /** The iso-3166-1 rows (sorted by alpha2) and the canonical CSV they hash as: RFC 4180, CRLF line ends. */
 export function iso3166Data(): { rows: string[][]; csv: string; version: string } {
   const require = createRequire(import.meta.url);
-  const countries = require("i18n-iso-countries") as CountriesModule;
+  // The library's core and its English names only: its Node entry registers all 80-odd languages,
+  // about 50 ms of every run's start for names no table uses.
+  const countries = require("i18n-iso-countries/index.js") as CountriesModule;
+  countries.registerLocale(require("i18n-iso-countries/langs/en.json") as object);
   const pkg = require("i18n-iso-countries/package.json") as { version: string };
   const rows: string[][] = [];
   for (const a2 of Object.keys(countries.getAlpha2Codes()).sort()) {
