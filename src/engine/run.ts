@@ -34,8 +34,9 @@ export interface EngineOutcome {
 
 /**
  * Run a plan over a delivery's records: the header first (unless `header: none`), then every data
- * record. Holds one row of scratch arrays, key and duplicate hashes, group accumulators and the numeric
- * columns outliers need; nothing else grows with the file.
+ * record. Records from the parse thread come prepared (engine/prepare.ts); others are prepared here.
+ * Holds one row of scratch arrays, the key and duplicate hashes (when rows are prepared here), group
+ * accumulators and the numeric columns outliers need; nothing else grows with the file.
  */
 export async function runPlan(plan: Plan, batches: AsyncIterable<readonly RawRecord[]>, structureBreak: () => StructureBreak | undefined, options: EngineOptions): Promise<EngineOutcome> {
   const out = createCollector(plan.checks, options.maxFindings);

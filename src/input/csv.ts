@@ -156,7 +156,7 @@ export async function* readCsv(reader: CsvReader, chunks: AsyncIterable<Buffer>,
       const err = reader.machine.parse(Buffer.from(pending, "utf8"), true, ignore, ignore);
       if (err !== undefined && !(err instanceof CsvError && err.code === "CSV_QUOTE_NOT_CLOSED")) broken = parseBreak(err, line);
     }
-    // Checked once a chunk, so the cost is not paid per character.
+    // Checked once a piece, so the cost is not paid per character.
     if (follows === "more" && pending.length > MAX_RECORD_SIZE) broken = tooLong(line);
   };
 
