@@ -3,12 +3,13 @@ import { isFalse, isTrue } from "../expr/index.js";
 import type { RawRecord, StructureBreak } from "../input/index.js";
 import type { ColumnProfile, Finding, Level } from "../report/model.js";
 import { plural } from "../report/wording.js";
-import { dateValue, timestampValue, timeValue, type TimestampValue, type Value } from "../values.js";
+import type { Value } from "../values.js";
 import { createCollector, type Collector } from "./collector.js";
 import { createFileEnd } from "./file-end.js";
 import { matchHeader, positional, type HeaderMatch } from "./header.js";
 import { createProfiler } from "./profile.js";
-import { ABSENT, BLANK, createPreparer, INVALID, numberSlots, prepareSpecOf, SPACED, ZONED, type ColumnLayout, type PreparedRows, type Preparer } from "./prepare.js";
+import { ABSENT, BLANK, createPreparer, INVALID, numberSlots, prepareSpecOf, SPACED, type ColumnLayout, type PreparedRows, type Preparer } from "./prepare.js";
+import { createValueRebuilder } from "./rebuild-value.js";
 import { cellValue, shownValue } from "./shown.js";
 
 export interface EngineOptions {
@@ -49,22 +50,7 @@ export async function runPlan(plan: Plan, batches: AsyncIterable<readonly RawRec
   const row = { values, texts };
   const kinds = cols.map((c) => c.type);
   const { slots: numberAt, count: perRowNumbers } = numberSlots(kinds);
-  // The last date, time or timestamp each column rebuilt, and the number it came from: deliveries
-  // repeat themselves from row to row, and values are immutable, so one object serves them all.
-  const lastNumber = new Float64Array(n).fill(Number.NaN);
-  const lastValue: Value[] = new Array<Value>(n).fill(null);
-  const rebuild = (i: number, text: string, x: number, flags: number): Value => {
-    const kind = kinds[i];
-    if (kind === "text") return text;
-    if (kind === "integer" || kind === "decimal") return x;
-    if (kind === "boolean") return x !== 0;
-    const last = lastValue[i] as Value;
-    if (lastNumber[i] === x && (kind !== "timestamp" || (last as TimestampValue).zoned === ((flags & ZONED) !== 0))) return last;
-    const v = kind === "date" ? dateValue(x) : kind === "time" ? timeValue(x) : timestampValue(x, (flags & ZONED) !== 0);
-    lastNumber[i] = x;
-    lastValue[i] = v;
-    return v;
-  };
+  const rebuild = createValueRebuilder(kinds);
   const end = createFileEnd(plan, out);
   const profiler = options.profile ? createProfiler(plan) : undefined;
   let header: HeaderMatch | undefined = plan.input.header === "none" ? positional(plan) : undefined;
