@@ -8,6 +8,7 @@ import { createU32List } from "./growable.js";
 import { keyPart } from "./key-text.js";
 import { createRowHasher } from "./row-hash.js";
 import { createSeenSet, type SeenSet } from "./seen-set.js";
+import { trimmed } from "./trim.js";
 
 /**
  * What preparing rows needs, as plain data that can be handed to the parse thread: the declared
@@ -50,20 +51,6 @@ export const ABSENT = 3;
 /** Flags over a state: the raw cell had spaces that trimming removed; a timestamp carried an offset. */
 export const SPACED = 4;
 export const ZONED = 8;
-
-/**
- * Whether String.prototype.trim could remove this UTF-16 unit: its white space and line terminators
- * (ECMA-262 §22.1.3.32: Zs, tab, VT, FF, U+FEFF, LF, CR, U+2028, U+2029). Most cells start and end
- * with neither, and this test is cheaper than trimming them.
- */
-function mayTrim(c: number): boolean {
-  return c <= 32 || c === 160 || (c >= 0x1680 && (c === 0x1680 || (c >= 0x2000 && c <= 0x200a) || c === 0x2028 || c === 0x2029 || c === 0x202f || c === 0x205f || c === 0x3000 || c === 0xfeff));
-}
-
-/** A raw cell without the spaces `trim` removes; the same string when it has none. */
-export function trimmed(raw: string): string {
-  return raw.length > 0 && (mayTrim(raw.charCodeAt(0)) || mayTrim(raw.charCodeAt(raw.length - 1))) ? raw.trim() : raw;
-}
 
 /**
  * Where each column's number sits within a row of PreparedRows.numbers (-1 for text, which needs none:

@@ -1,5 +1,6 @@
 import type { ColumnPlan } from "../contract/plan.js";
 import type { RowView } from "../checks/index.js";
+import { trimmed } from "../engine/trim.js";
 import { formatValue } from "../types/index.js";
 import type { Value } from "../values.js";
 import { plainNumbers } from "./plain-number.js";
@@ -19,15 +20,6 @@ export interface CellRepair {
 
 /** Rewrites one trimmed, non-blank cell that parsed; undefined keeps it as it is. */
 type TypedRepair = (text: string, row: () => RowView) => string | undefined;
-
-/** Cells the engine trims: the same test, so a repair never trims what a check would not. */
-export function trimmed(raw: string): string {
-  const n = raw.length;
-  if (n === 0) return raw;
-  const a = raw.charCodeAt(0);
-  const z = raw.charCodeAt(n - 1);
-  return a <= 32 || z <= 32 || a === 160 || z === 160 ? raw.trim() : raw;
-}
 
 const REPAIR_OF_TYPE: Readonly<Record<ColumnPlan["type"], RepairName | undefined>> = {
   text: undefined,

@@ -2,7 +2,8 @@ import type { RowView } from "../checks/index.js";
 import type { Plan } from "../contract/plan.js";
 import type { HeaderMatch } from "../engine/header.js";
 import type { Value } from "../values.js";
-import { compileColumnRepair, trimmed, type ColumnRepairer, type RepairName } from "./cell-repair.js";
+import { trimmed } from "../engine/trim.js";
+import { compileColumnRepair, type ColumnRepairer, type RepairName } from "./cell-repair.js";
 
 /** One changed cell of a record: the declared column, its position in the record, and what changed. */
 export interface CellChange {

@@ -25,6 +25,13 @@ describe("trim", () => {
     ]);
   });
 
+  test("spaces check flags and fix trims the same cells: ideographic and no-break spaces at both ends too", async () => {
+    // ECMA-262 String.prototype.trim removes U+3000 and U+00A0; the engine reports them as spaces.
+    const r = await fixColumn("{ type: text }", ["\u3000Trail Tent\u3000", "\u00a0Camp Stove\u00a0"]);
+    expect(r.clean).toEqual(["Trail Tent", "Camp Stove"]);
+    expect(r.log.map((e) => e.repair)).toEqual(["trim", "trim"]);
+  });
+
   test("a column with spaces: allow keeps them", async () => {
     const r = await fixColumn("{ type: text, spaces: allow }", ["  Trail Tent ", "Camp Stove"]);
     expect(r.clean).toEqual(["  Trail Tent ", "Camp Stove"]);
