@@ -2,7 +2,7 @@ import { StringDecoder } from "node:string_decoder";
 import { Parser, CsvError } from "csv-parse";
 import type { Decoder } from "./decode.js";
 import { breaksIn } from "./lines.js";
-import { ownString, VIEW_MIN } from "./own-string.js";
+import { ownString } from "./own-string.js";
 import { INSIDE_QUOTES, recordEnd } from "./quoted-record.js";
 import { MAX_CELLS, MAX_RECORD_SIZE, type RawRecord, type StructureBreak } from "./types.js";
 
@@ -139,7 +139,7 @@ export async function* readCsv(reader: CsvReader, chunks: AsyncIterable<Buffer>,
         // An empty line is no record (csv-parse's skip_empty_lines, above).
         if (end > pos && broken === undefined) {
           const cells = text.slice(pos, end).split(delimiter);
-          for (let c = 0; c < cells.length; c++) if ((cells[c] as string).length >= VIEW_MIN) cells[c] = ownString(cells[c] as string);
+          for (let c = 0; c < cells.length; c++) cells[c] = ownString(cells[c] as string);
           if (cells.length > MAX_CELLS) broken = tooWide(line);
           else batch.push({ cells, line });
         }

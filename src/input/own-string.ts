@@ -3,7 +3,7 @@
  * from, so a kept cell (a group's key, a finding's value, a distinct value in a profile) would keep
  * the whole 64 KB of text it was read from alive. Such cuts go through here.
  */
-export const VIEW_MIN = 13;
+const VIEW_MIN = 13;
 
 /** The same text as a string of its own: a rope of a space and the text flattens into a new string. */
 export function ownString(view: string): string {

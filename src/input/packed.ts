@@ -1,6 +1,6 @@
 import type { PreparedRows } from "../engine/prepare.js";
 import { NO_POOL, type BufferPool } from "./buffer-pool.js";
-import { ownString, VIEW_MIN } from "./own-string.js";
+import { ownString } from "./own-string.js";
 import type { RawRecord } from "./types.js";
 
 /**
@@ -49,7 +49,7 @@ export function packRecords(records: readonly RawRecord[], from = 0, budget = In
 
 /** A cell of the batch's text that does not keep the whole batch alive (see own-string.ts). */
 function cut(text: string, from: number, to: number): string {
-  return to - from < VIEW_MIN ? text.slice(from, to) : ownString(text.slice(from, to));
+  return ownString(text.slice(from, to));
 }
 
 /** The buffers under a packed piece's typed arrays, to be handed back once its rows are checked. */
